@@ -1,0 +1,13 @@
+//! gammaline: finite-wing analysis by lifting-line theory.
+//!
+//! The crate is layered so that a reader can tell from a module's name what it may touch:
+//! - [`wing`]: the wing model, its planform geometry, validation and TOML file format;
+//! - [`atmosphere`]: the 1976 standard atmosphere (pure functions);
+//! - [`solver`]: Glauert's solution of Prandtl's lifting-line equation (pure, no I/O);
+//! - [`report`]: text, JSON and CSV renderings of a solution (strings only);
+//! - [`cli`]: the headless command line; [`tui`]: the terminal workbench.
+
+pub mod atmosphere;
+pub mod report;
+pub mod solver;
+pub mod wing;

@@ -1,0 +1,426 @@
+//! The lifting-line solver: a pure function of (wing, condition, options). No I/O, no terminal.
+//!
+//! [`prepare`] builds and factors the collocation system once per geometry; every angle of
+//! attack, target CL or sweep point after that is a back-substitution ([`Prepared::solve`],
+//! [`Prepared::sweep`]).
+
+pub mod controls;
+pub mod fourier;
+pub mod integrals;
+mod spanwise;
+
+use std::f64::consts::PI;
+
+use crate::atmosphere;
+use crate::wing::validate::{self, Problem};
+use crate::wing::{Condition, Geometry, Wing};
+use fourier::SpanMap;
+use integrals::LoadIntegrals;
+
+pub use spanwise::SpanPoint;
+
+/// Default number of sine terms, chosen from the convergence study in docs/theory.md.
+pub const DEFAULT_TERMS: usize = 60;
+/// Fewest terms accepted.
+pub const MIN_TERMS: usize = 2;
+/// Most terms accepted (the dense factorisation grows as N^3).
+pub const MAX_TERMS: usize = 1000;
+
+/// Name of the method, as printed in reports.
+pub const METHOD: &str = "Glauert sine series, collocation";
+
+/// Solver settings.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Options {
+    /// Number of sine terms (and collocation points).
+    pub terms: usize,
+}
+
+impl Default for Options {
+    fn default() -> Self {
+        Self {
+            terms: DEFAULT_TERMS,
+        }
+    }
+}
+
+/// Why a wing could not be solved.
+#[derive(Debug, Clone, PartialEq, thiserror::Error)]
+pub enum SolveError {
+    /// The wing or condition breaks a rule (see [`validate::problems`]).
+    #[error("{0}")]
+    Invalid(Problem),
+    /// The term count is outside [`MIN_TERMS`]..=[`MAX_TERMS`].
+    #[error("terms: must be between {MIN_TERMS} and {MAX_TERMS} (got {0})")]
+    Terms(usize),
+    /// The collocation matrix could not be factored.
+    #[error("the lifting-line system is singular for this wing")]
+    Singular,
+    /// A target CL that no angle of attack reaches (zero lift slope).
+    #[error("cannot reach CL = {0}: the wing's lift slope is zero")]
+    Unreachable(f64),
+}
+
+/// A wing with its collocation system factored, ready for any angle of attack.
+#[derive(Debug, Clone)]
+pub struct Prepared {
+    geometry: Geometry,
+    map: SpanMap,
+    per_alpha: Vec<f64>,
+    at_zero: Vec<f64>,
+    integrals: LoadIntegrals,
+    wing: Wing,
+    warnings: Vec<String>,
+}
+
+/// Builds and factors the collocation system of a wing.
+///
+/// # Errors
+/// [`SolveError::Invalid`] for a wing that breaks a rule, [`SolveError::Terms`] for a bad term
+/// count, [`SolveError::Singular`] if the system cannot be solved.
+pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
+    if let Some(p) = validate::problems(wing).into_iter().next() {
+        return Err(SolveError::Invalid(p));
+    }
+    let n = options.terms;
+    if !(MIN_TERMS..=MAX_TERMS).contains(&n) {
+        return Err(SolveError::Terms(n));
+    }
+    let geometry = Geometry::of(wing);
+    let map = SpanMap {
+        y_mid: geometry.y_mid,
+        half_span: 0.5 * geometry.span,
+    };
+    let thetas = fourier::collocation_angles(n);
+    let mut mu = Vec::with_capacity(n);
+    let mut rhs = Vec::with_capacity(n);
+    for &theta in &thetas {
+        let s = wing.section_at(map.y(theta));
+        mu.push(4.0 * geometry.span / (s.airfoil.lift_slope * s.chord));
+        rhs.push(s.twist - s.airfoil.alpha_zero_lift_deg.to_radians());
+    }
+    let control_spans = controls::spans(&wing.controls);
+    for span in &control_spans {
+        fourier::add_control_shift(map, &thetas, span, &mut rhs);
+    }
+    let responses =
+        fourier::responses(fourier::matrix(&thetas, &mu), &rhs).ok_or(SolveError::Singular)?;
+    let edges: Vec<f64> = control_spans.iter().flat_map(|s| [s.y_from, s.y_to]).collect();
+    let integrals = integrals::integrate(
+        wing,
+        map,
+        geometry.area,
+        &responses.per_alpha,
+        &responses.at_zero,
+        &edges,
+    );
+    let warnings = validate::warnings(wing, &geometry);
+    Ok(Prepared {
+        geometry,
+        map,
+        per_alpha: responses.per_alpha,
+        at_zero: responses.at_zero,
+        integrals,
+        wing: wing.clone(),
+        warnings,
+    })
+}
+
+/// Solves a wing at a condition with default options.
+///
+/// # Errors
+/// As [`prepare`] and [`Prepared::solve`].
+pub fn solve(wing: &Wing, condition: &Condition, options: Options) -> Result<Solution, SolveError> {
+    prepare(wing, options)?.solve(condition)
+}
+
+/// The integrated coefficients at one angle of attack (what a sweep returns per point).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Coefficients {
+    /// Angle of attack of the reference line, degrees.
+    pub alpha_deg: f64,
+    /// Lift coefficient, CL = pi AR A_1.
+    pub cl: f64,
+    /// Induced drag coefficient, CDi = pi AR sum n A_n^2.
+    pub cdi: f64,
+    /// Profile drag coefficient from the section polars.
+    pub cdp: f64,
+    /// CDi + CDp.
+    pub cd: f64,
+    /// Induced-drag factor delta = sum_{n>=2} n (A_n/A_1)^2 (`None` at zero lift).
+    pub delta: Option<f64>,
+    /// Span efficiency e = 1/(1 + delta) = CL^2/(pi AR CDi) (`None` at zero lift).
+    pub e: Option<f64>,
+    /// Rolling moment, positive right wing down.
+    pub cl_roll: f64,
+    /// Yawing moment, positive nose right: induced plus profile.
+    pub cn: f64,
+    /// Induced part of Cn.
+    pub cn_induced: f64,
+    /// Profile part of Cn.
+    pub cn_profile: f64,
+}
+
+/// The first section to reach its cl_max, by the linear critical-section estimate.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct FirstStall {
+    /// Where, m.
+    pub y: f64,
+    /// Wing CL when that section reaches cl_max.
+    pub cl_wing: f64,
+    /// Angle of attack when it does, degrees.
+    pub alpha_deg: f64,
+}
+
+/// Dimensional values at the flight condition (1976 standard atmosphere).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Flight {
+    /// True airspeed, m/s.
+    pub speed: f64,
+    /// Geopotential altitude, m.
+    pub altitude: f64,
+    /// The air there.
+    pub air: atmosphere::Air,
+    /// Dynamic pressure, Pa.
+    pub q: f64,
+    /// Mach number.
+    pub mach: f64,
+    /// Reynolds number on the mean aerodynamic chord.
+    pub reynolds_mac: f64,
+    /// Lift, N.
+    pub lift: f64,
+    /// Drag (induced plus profile), N.
+    pub drag: f64,
+    /// Right-half root bending moment, N m.
+    pub root_bending_moment: f64,
+    /// Left-half root bending moment, N m.
+    pub left_root_bending_moment: f64,
+}
+
+/// Everything a solve reports.
+#[derive(Debug, Clone)]
+pub struct Solution {
+    /// Integrated coefficients.
+    pub coefficients: Coefficients,
+    /// Lift-curve slope, per radian.
+    pub cl_alpha: f64,
+    /// Lift-slope factor tau from a = a0/(1 + (a0/(pi AR))(1 + tau)), with a0 the
+    /// area-weighted section slope.
+    pub tau: f64,
+    /// The sine-series coefficients A_1..A_N.
+    pub fourier: Vec<f64>,
+    /// Planform.
+    pub geometry: Geometry,
+    /// Spanwise centre of lift of the right half, m.
+    pub center_of_lift_y: f64,
+    /// Right-half root bending moment over dynamic pressure, m^3.
+    pub root_bending_per_q: f64,
+    /// First section to stall.
+    pub first_stall: Option<FirstStall>,
+    /// Values at the output points (the collocation points), left tip to right tip.
+    pub spanwise: Vec<SpanPoint>,
+    /// Values at the wing's stations.
+    pub stations: Vec<SpanPoint>,
+    /// Dimensional values.
+    pub flight: Flight,
+    /// Number of sine terms.
+    pub terms: usize,
+    /// Where lifting-line theory is weak for this case.
+    pub warnings: Vec<String>,
+}
+
+impl Prepared {
+    /// The planform.
+    #[must_use]
+    pub const fn geometry(&self) -> &Geometry {
+        &self.geometry
+    }
+
+    /// Lift-curve slope dCL/dalpha, per radian.
+    #[must_use]
+    pub fn cl_alpha(&self) -> f64 {
+        PI * self.geometry.aspect_ratio * self.per_alpha[0]
+    }
+
+    /// The angle of attack (radians) that gives lift coefficient `cl`.
+    ///
+    /// # Errors
+    /// [`SolveError::Unreachable`] when the lift slope is zero.
+    pub fn alpha_for_cl(&self, cl: f64) -> Result<f64, SolveError> {
+        let slope = self.per_alpha[0];
+        if slope.abs() < 1e-14 {
+            return Err(SolveError::Unreachable(cl));
+        }
+        Ok((cl / (PI * self.geometry.aspect_ratio) - self.at_zero[0]) / slope)
+    }
+
+    /// A_n at angle of attack `alpha` (radians).
+    #[must_use]
+    pub fn fourier_at(&self, alpha: f64) -> Vec<f64> {
+        self.per_alpha
+            .iter()
+            .zip(&self.at_zero)
+            .map(|(p, z)| alpha * p + z)
+            .collect()
+    }
+
+    /// The integrated coefficients at `alpha` (radians): O(N) work.
+    #[must_use]
+    pub fn coefficients(&self, alpha: f64) -> Coefficients {
+        let ar = self.geometry.aspect_ratio;
+        let mut a1 = 0.0;
+        let mut a2 = 0.0;
+        let mut sum_n_a2 = 0.0;
+        for (i, (p, z)) in self.per_alpha.iter().zip(&self.at_zero).enumerate() {
+            let a = alpha * p + z;
+            match i {
+                0 => a1 = a,
+                1 => a2 = a,
+                _ => {}
+            }
+            sum_n_a2 += (i + 1) as f64 * a * a;
+        }
+        let cl = PI * ar * a1;
+        let cdi = PI * ar * sum_n_a2;
+        let delta = (a1.abs() > 1e-12).then(|| sum_n_a2 / (a1 * a1) - 1.0);
+        let cdp = self.integrals.cdp.at(alpha);
+        let cn_induced = self.integrals.cn_induced.at(alpha);
+        let cn_profile = self.integrals.cn_profile.at(alpha);
+        Coefficients {
+            alpha_deg: alpha.to_degrees(),
+            cl,
+            cdi,
+            cdp,
+            cd: cdi + cdp,
+            delta,
+            e: delta.map(|d| 1.0 / (1.0 + d)),
+            // (pi AR / 4) A_2 about the span midpoint, moved to y = 0.
+            cl_roll: PI * ar / 4.0 * a2 - cl * self.geometry.y_mid / self.geometry.span,
+            cn: cn_induced + cn_profile,
+            cn_induced,
+            cn_profile,
+        }
+    }
+
+    /// Coefficients at each angle of attack (degrees): one back-substitution already done,
+    /// so each point is O(N).
+    #[must_use]
+    pub fn sweep(&self, alphas_deg: &[f64]) -> Vec<Coefficients> {
+        alphas_deg
+            .iter()
+            .map(|a| self.coefficients(a.to_radians()))
+            .collect()
+    }
+
+    /// Full solution at a flight condition (target CL if it has one, else its alpha).
+    ///
+    /// # Errors
+    /// [`SolveError::Invalid`] for a bad condition, [`SolveError::Unreachable`] for an
+    /// unreachable target CL.
+    pub fn solve(&self, condition: &Condition) -> Result<Solution, SolveError> {
+        if let Some(p) = validate::condition_rules(condition).into_iter().next() {
+            return Err(SolveError::Invalid(p));
+        }
+        let alpha = match condition.target_cl {
+            Some(cl) => self.alpha_for_cl(cl)?,
+            None => condition.alpha_deg.to_radians(),
+        };
+        Ok(self.solution_at(alpha, condition))
+    }
+
+    fn solution_at(&self, alpha: f64, condition: &Condition) -> Solution {
+        let coefficients = self.coefficients(alpha);
+        let fourier = self.fourier_at(alpha);
+        let g = &self.geometry;
+        let air = atmosphere::at(condition.altitude);
+        let v = condition.speed;
+        let q = 0.5 * air.density * v * v;
+        let right_lift = self.integrals.right_lift.at(alpha);
+        let root_bending_per_q = self.integrals.right_moment.at(alpha);
+        let flight = Flight {
+            speed: v,
+            altitude: condition.altitude,
+            air,
+            q,
+            mach: v / air.speed_of_sound,
+            reynolds_mac: air.density * v * g.mac / air.viscosity,
+            lift: q * g.area * coefficients.cl,
+            drag: q * g.area * coefficients.cd,
+            root_bending_moment: q * root_bending_per_q,
+            left_root_bending_moment: q * self.integrals.left_moment.at(alpha),
+        };
+        let evaluator = spanwise::Evaluator::new(&self.wing, self.map, g.area / g.span, v);
+        let spanwise = fourier::collocation_angles(fourier.len())
+            .into_iter()
+            .map(|theta| evaluator.at_theta(&fourier, theta, alpha))
+            .collect::<Vec<_>>();
+        let stations = self
+            .wing
+            .stations
+            .iter()
+            .map(|s| evaluator.at_theta(&fourier, self.map.theta(s.y), alpha))
+            .collect();
+        let mean_slope = self.integrals.mean_lift_slope;
+        let cl_alpha = self.cl_alpha();
+        let mut warnings = self.warnings.clone();
+        flight_warnings(&flight, &spanwise, &mut warnings);
+        Solution {
+            coefficients,
+            cl_alpha,
+            tau: (mean_slope / cl_alpha - 1.0) * PI * g.aspect_ratio / mean_slope - 1.0,
+            fourier,
+            geometry: *g,
+            center_of_lift_y: if right_lift.abs() > 1e-12 {
+                root_bending_per_q / right_lift
+            } else {
+                f64::NAN
+            },
+            root_bending_per_q,
+            first_stall: self.first_stall(&evaluator),
+            spanwise,
+            stations,
+            flight,
+            terms: self.per_alpha.len(),
+            warnings,
+        }
+    }
+
+    /// Linear critical-section estimate: each output point's cl is linear in alpha, so the
+    /// alpha at which it reaches cl_max is found exactly; the least of these is the first
+    /// stall. Right-half points win ties, so a symmetric wing reports y >= 0.
+    fn first_stall(&self, evaluator: &spanwise::Evaluator<'_>) -> Option<FirstStall> {
+        let thetas = fourier::collocation_angles(self.per_alpha.len());
+        let mut best: Option<(f64, f64)> = None;
+        for &theta in thetas.iter().rev() {
+            let zero = evaluator.at_theta(&self.at_zero, theta, 0.0);
+            let slope = evaluator.cl_per_alpha(&self.per_alpha, theta);
+            if slope <= 1e-9 {
+                continue;
+            }
+            let alpha = (zero.cl_max - zero.cl) / slope;
+            if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
+                best = Some((alpha, zero.y));
+            }
+        }
+        best.map(|(alpha, y)| FirstStall {
+            y,
+            cl_wing: self.coefficients(alpha).cl,
+            alpha_deg: alpha.to_degrees(),
+        })
+    }
+}
+
+fn flight_warnings(flight: &Flight, spanwise: &[SpanPoint], out: &mut Vec<String>) {
+    if flight.mach > 0.3 {
+        out.push(format!(
+            "Mach {:.2} above 0.3: incompressible lifting-line theory underestimates the loads",
+            flight.mach
+        ));
+    }
+    if let Some(p) = spanwise.iter().find(|p| p.cl_ratio > 1.0) {
+        out.push(format!(
+            "cl exceeds cl_max (at y = {:.3} m): past the stall the linear theory does not hold",
+            p.y
+        ));
+    }
+}

@@ -1,0 +1,475 @@
+//! Reading and writing wing files (TOML). Every error names the file, line:column, the
+//! station or table, the field and what is wrong.
+
+use std::collections::{BTreeMap, HashMap};
+use std::fmt::Write as _;
+use std::ops::Range;
+use std::path::{Path, PathBuf};
+
+use serde::Deserialize;
+use toml::Spanned;
+
+use super::validate::{self, Place};
+use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
+
+/// A wing file that cannot be used, located to the character.
+#[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
+#[error("{}:{line}:{column}: {place}: {field}: {reason}", path.display())]
+pub struct WingFileError {
+    /// The file.
+    pub path: PathBuf,
+    /// 1-based line.
+    pub line: usize,
+    /// 1-based column (characters).
+    pub column: usize,
+    /// The station or table, e.g. `station 3`, `airfoil root`.
+    pub place: String,
+    /// The key, or `toml` for a syntax error.
+    pub field: String,
+    /// What is wrong.
+    pub reason: String,
+}
+
+/// Reads and validates a wing file.
+///
+/// # Errors
+/// The first problem in the file, or an I/O failure reported at 1:1.
+pub fn read(path: &Path) -> Result<Wing, WingFileError> {
+    let text = std::fs::read_to_string(path).map_err(|e| WingFileError {
+        path: path.to_path_buf(),
+        line: 1,
+        column: 1,
+        place: "file".into(),
+        field: "-".into(),
+        reason: format!("cannot read: {e}"),
+    })?;
+    parse(&text, path)
+}
+
+/// Parses and validates wing-file text; `path` is used in error messages and for the default
+/// name.
+///
+/// # Errors
+/// The first problem in the text.
+pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
+    let locate = Locator::new(text, path);
+    let raw: RawWing = toml::from_str(text).map_err(|e| locate.serde_error(&e))?;
+    let (wing, spans) = raw.into_wing(path);
+    match validate::problems(&wing).into_iter().next() {
+        None => Ok(wing),
+        Some(p) => {
+            let offset = spans.offset(&p.place, p.field);
+            Err(locate.at(offset, p.place.to_string(), p.field, p.reason))
+        }
+    }
+}
+
+/// Byte offsets of each place and field, kept from the parse for error messages.
+#[derive(Default)]
+struct Spans {
+    fields: HashMap<(Place, &'static str), usize>,
+    tables: HashMap<Place, usize>,
+}
+
+impl Spans {
+    fn field(&mut self, place: &Place, field: &'static str, span: Range<usize>) {
+        self.fields.insert((place.clone(), field), span.start);
+    }
+
+    fn offset(&self, place: &Place, field: &'static str) -> usize {
+        self.fields
+            .get(&(place.clone(), field))
+            .or_else(|| self.tables.get(place))
+            .copied()
+            .unwrap_or(0)
+    }
+}
+
+/// Turns byte offsets into line:column and names the table an offset falls in.
+struct Locator<'a> {
+    text: &'a str,
+    path: &'a Path,
+    /// (offset of a table header, its place name), in file order.
+    headers: Vec<(usize, String)>,
+}
+
+impl<'a> Locator<'a> {
+    fn new(text: &'a str, path: &'a Path) -> Self {
+        let mut headers = Vec::new();
+        let (mut stations, mut controls) = (0, 0);
+        let mut offset = 0;
+        for line in text.split_inclusive('\n') {
+            let t = line.trim();
+            let name = if t.starts_with("[[station]]") {
+                stations += 1;
+                Some(format!("station {stations}"))
+            } else if t.starts_with("[[control]]") {
+                controls += 1;
+                Some(format!("control {controls}"))
+            } else if let Some(rest) = t.strip_prefix("[airfoil.") {
+                Some(format!("airfoil {}", rest.split(']').next().unwrap_or("").trim()))
+            } else if t.starts_with('[') {
+                Some(t.trim_matches(|c| c == '[' || c == ']').trim().to_string())
+            } else {
+                None
+            };
+            if let Some(name) = name {
+                headers.push((offset, name));
+            }
+            offset += line.len();
+        }
+        Self {
+            text,
+            path,
+            headers,
+        }
+    }
+
+    fn place_of(&self, offset: usize) -> String {
+        self.headers
+            .iter()
+            .take_while(|(start, _)| *start <= offset)
+            .last()
+            .map_or_else(|| "wing".to_string(), |(_, name)| name.clone())
+    }
+
+    fn line_column(&self, offset: usize) -> (usize, usize) {
+        let before = &self.text[..offset.min(self.text.len())];
+        let line = before.matches('\n').count() + 1;
+        let column = before.rsplit('\n').next().map_or(0, |l| l.chars().count()) + 1;
+        (line, column)
+    }
+
+    fn at(&self, offset: usize, place: String, field: &str, reason: String) -> WingFileError {
+        let (line, column) = self.line_column(offset);
+        WingFileError {
+            path: self.path.to_path_buf(),
+            line,
+            column,
+            place,
+            field: field.to_string(),
+            reason,
+        }
+    }
+
+    /// Maps a TOML or serde error (syntax, unknown key, missing field, wrong type) to one line.
+    fn serde_error(&self, e: &toml::de::Error) -> WingFileError {
+        let offset = e.span().map_or(0, |s| s.start);
+        let message = e.message().lines().next().unwrap_or("invalid TOML").trim();
+        let place = self.place_of(offset);
+        if let Some((key, expected)) = unknown_key(message) {
+            let known: Vec<&str> = expected.iter().map(String::as_str).collect();
+            let hint = validate::suggestion(&key, &known).replace(" (known:", " (expected one of:");
+            return self.at(offset, place, &key, format!("unknown key{hint}"));
+        }
+        if let Some(key) = between(message, "missing field `", "`") {
+            return self.at(offset, place, key, "missing (required)".into());
+        }
+        if let Some(variant) = between(message, "unknown variant `", "`") {
+            let reason = format!("unknown kind `{variant}` (expected `flap` or `aileron`)");
+            return self.at(offset, place, "kind", reason);
+        }
+        let field = self.key_at(offset).unwrap_or_else(|| "toml".to_string());
+        self.at(offset, place, &field, message.to_string())
+    }
+
+    /// The key on the line of `offset`, when that line is `key = value`.
+    fn key_at(&self, offset: usize) -> Option<String> {
+        let start = self.text[..offset.min(self.text.len())].rfind('\n').map_or(0, |i| i + 1);
+        let line = self.text[start..].lines().next()?;
+        let (key, _) = line.split_once('=')?;
+        let key = key.trim();
+        (!key.is_empty() && !key.starts_with('[')).then(|| key.to_string())
+    }
+}
+
+fn between<'m>(message: &'m str, open: &str, close: &str) -> Option<&'m str> {
+    let rest = message.split_once(open)?.1;
+    Some(rest.split_once(close)?.0)
+}
+
+/// Parses serde's "unknown field `x`, expected one of `a`, `b`" into the key and candidates.
+fn unknown_key(message: &str) -> Option<(String, Vec<String>)> {
+    let key = between(message, "unknown field `", "`")?.to_string();
+    let expected = message
+        .split_once("expected")
+        .map(|(_, list)| {
+            list.split('`')
+                .skip(1)
+                .step_by(2)
+                .map(str::to_string)
+                .collect()
+        })
+        .unwrap_or_default();
+    Some((key, expected))
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawWing {
+    name: Option<Spanned<String>>,
+    symmetric: Option<Spanned<bool>>,
+    #[serde(default)]
+    station: Vec<Spanned<RawStation>>,
+    #[serde(default)]
+    airfoil: BTreeMap<String, Spanned<RawAirfoil>>,
+    #[serde(default)]
+    control: Vec<Spanned<RawControl>>,
+    condition: Option<Spanned<RawCondition>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawStation {
+    y: Spanned<f64>,
+    chord: Spanned<f64>,
+    twist: Option<Spanned<f64>>,
+    airfoil: Spanned<String>,
+    x_le: Option<Spanned<f64>>,
+    z: Option<Spanned<f64>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawAirfoil {
+    lift_slope: Spanned<f64>,
+    alpha_zero_lift: Spanned<f64>,
+    cl_max: Spanned<f64>,
+    cd0: Spanned<f64>,
+    cd1: Option<Spanned<f64>>,
+    cd2: Option<Spanned<f64>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields, rename_all = "lowercase")]
+enum RawKind {
+    Flap,
+    Aileron,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawControl {
+    name: Spanned<String>,
+    kind: Spanned<RawKind>,
+    y_inner: Spanned<f64>,
+    y_outer: Spanned<f64>,
+    chord_fraction: Spanned<f64>,
+    deflection: Option<Spanned<f64>>,
+    effectiveness: Option<Spanned<f64>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawCondition {
+    alpha: Option<Spanned<f64>>,
+    cl: Option<Spanned<f64>>,
+    speed: Option<Spanned<f64>>,
+    altitude: Option<Spanned<f64>>,
+}
+
+/// Takes a value and records where it stood.
+fn take<T>(spans: &mut Spans, place: &Place, field: &'static str, value: Spanned<T>) -> T {
+    spans.field(place, field, value.span());
+    value.into_inner()
+}
+
+fn take_or<T>(
+    spans: &mut Spans,
+    place: &Place,
+    field: &'static str,
+    value: Option<Spanned<T>>,
+    default: T,
+) -> T {
+    value.map_or(default, |v| take(spans, place, field, v))
+}
+
+impl RawWing {
+    fn into_wing(self, path: &Path) -> (Wing, Spans) {
+        let mut spans = Spans::default();
+        let top = Place::Wing;
+        let default_name = path
+            .file_stem()
+            .map_or_else(|| "wing".to_string(), |s| s.to_string_lossy().into_owned());
+        let name = take_or(&mut spans, &top, "name", self.name, default_name);
+        let symmetric = take_or(&mut spans, &top, "symmetric", self.symmetric, true);
+        let stations = self
+            .station
+            .into_iter()
+            .enumerate()
+            .map(|(i, s)| station(&mut spans, i, s))
+            .collect::<Vec<_>>();
+        if let Some(last) = stations.len().checked_sub(1) {
+            spans.tables.entry(Place::Wing).or_insert(0);
+            let at = spans.offset(&Place::Station(last), "y");
+            spans.fields.entry((Place::Wing, "station")).or_insert(at);
+        }
+        let airfoils = self
+            .airfoil
+            .into_iter()
+            .map(|(key, a)| {
+                let a = airfoil(&mut spans, &key, a);
+                (key, a)
+            })
+            .collect();
+        let controls = self
+            .control
+            .into_iter()
+            .enumerate()
+            .map(|(i, c)| control(&mut spans, i, c))
+            .collect();
+        let condition = self
+            .condition
+            .map_or_else(Condition::default, |c| condition(&mut spans, c));
+        let wing = Wing {
+            name,
+            symmetric,
+            stations,
+            airfoils,
+            controls,
+            condition,
+        };
+        (wing, spans)
+    }
+}
+
+fn station(spans: &mut Spans, i: usize, raw: Spanned<RawStation>) -> Station {
+    let place = Place::Station(i);
+    spans.tables.insert(place.clone(), raw.span().start);
+    let s = raw.into_inner();
+    Station {
+        y: take(spans, &place, "y", s.y),
+        chord: take(spans, &place, "chord", s.chord),
+        twist_deg: take_or(spans, &place, "twist", s.twist, 0.0),
+        airfoil: take(spans, &place, "airfoil", s.airfoil),
+        x_le: take_or(spans, &place, "x_le", s.x_le, 0.0),
+        z: take_or(spans, &place, "z", s.z, 0.0),
+    }
+}
+
+fn airfoil(spans: &mut Spans, key: &str, raw: Spanned<RawAirfoil>) -> Airfoil {
+    let place = Place::Airfoil(key.to_string());
+    spans.tables.insert(place.clone(), raw.span().start);
+    let a = raw.into_inner();
+    Airfoil {
+        lift_slope: take(spans, &place, "lift_slope", a.lift_slope),
+        alpha_zero_lift_deg: take(spans, &place, "alpha_zero_lift", a.alpha_zero_lift),
+        cl_max: take(spans, &place, "cl_max", a.cl_max),
+        cd0: take(spans, &place, "cd0", a.cd0),
+        cd1: take_or(spans, &place, "cd1", a.cd1, 0.0),
+        cd2: take_or(spans, &place, "cd2", a.cd2, 0.0),
+    }
+}
+
+fn control(spans: &mut Spans, i: usize, raw: Spanned<RawControl>) -> Control {
+    let place = Place::Control(i);
+    spans.tables.insert(place.clone(), raw.span().start);
+    let c = raw.into_inner();
+    let kind = match take(spans, &place, "kind", c.kind) {
+        RawKind::Flap => ControlKind::Flap,
+        RawKind::Aileron => ControlKind::Aileron,
+    };
+    Control {
+        name: take(spans, &place, "name", c.name),
+        kind,
+        y_inner: take(spans, &place, "y_inner", c.y_inner),
+        y_outer: take(spans, &place, "y_outer", c.y_outer),
+        chord_fraction: take(spans, &place, "chord_fraction", c.chord_fraction),
+        deflection_deg: take_or(spans, &place, "deflection", c.deflection, 0.0),
+        effectiveness: c.effectiveness.map(|e| take(spans, &place, "effectiveness", e)),
+    }
+}
+
+fn condition(spans: &mut Spans, raw: Spanned<RawCondition>) -> Condition {
+    let place = Place::Condition;
+    spans.tables.insert(place.clone(), raw.span().start);
+    let c = raw.into_inner();
+    let d = Condition::default();
+    Condition {
+        alpha_deg: take_or(spans, &place, "alpha", c.alpha, d.alpha_deg),
+        target_cl: c.cl.map(|v| take(spans, &place, "cl", v)),
+        speed: take_or(spans, &place, "speed", c.speed, d.speed),
+        altitude: take_or(spans, &place, "altitude", c.altitude, d.altitude),
+    }
+}
+
+/// Writes a wing in the file format, every value at full precision so it reads back equal.
+#[must_use]
+pub fn to_toml(wing: &Wing) -> String {
+    let mut out = String::new();
+    let _ = writeln!(out, "name = {}", quoted(&wing.name));
+    let _ = writeln!(out, "symmetric = {}", wing.symmetric);
+    for s in &wing.stations {
+        let _ = writeln!(out, "\n[[station]]");
+        let _ = writeln!(out, "y = {}", num(s.y));
+        let _ = writeln!(out, "chord = {}", num(s.chord));
+        let _ = writeln!(out, "twist = {}", num(s.twist_deg));
+        let _ = writeln!(out, "airfoil = {}", quoted(&s.airfoil));
+        if s.x_le != 0.0 {
+            let _ = writeln!(out, "x_le = {}", num(s.x_le));
+        }
+        if s.z != 0.0 {
+            let _ = writeln!(out, "z = {}", num(s.z));
+        }
+    }
+    for (key, a) in &wing.airfoils {
+        let _ = writeln!(out, "\n[airfoil.{}]", table_key(key));
+        let _ = writeln!(out, "lift_slope = {}", num(a.lift_slope));
+        let _ = writeln!(out, "alpha_zero_lift = {}", num(a.alpha_zero_lift_deg));
+        let _ = writeln!(out, "cl_max = {}", num(a.cl_max));
+        let _ = writeln!(out, "cd0 = {}", num(a.cd0));
+        let _ = writeln!(out, "cd1 = {}", num(a.cd1));
+        let _ = writeln!(out, "cd2 = {}", num(a.cd2));
+    }
+    for c in &wing.controls {
+        let _ = writeln!(out, "\n[[control]]");
+        let _ = writeln!(out, "name = {}", quoted(&c.name));
+        let _ = writeln!(out, "kind = \"{}\"", c.kind.as_str());
+        let _ = writeln!(out, "y_inner = {}", num(c.y_inner));
+        let _ = writeln!(out, "y_outer = {}", num(c.y_outer));
+        let _ = writeln!(out, "chord_fraction = {}", num(c.chord_fraction));
+        let _ = writeln!(out, "deflection = {}", num(c.deflection_deg));
+        if let Some(e) = c.effectiveness {
+            let _ = writeln!(out, "effectiveness = {}", num(e));
+        }
+    }
+    let c = &wing.condition;
+    let _ = writeln!(out, "\n[condition]");
+    match c.target_cl {
+        Some(cl) => {
+            let _ = writeln!(out, "cl = {}", num(cl));
+        }
+        None => {
+            let _ = writeln!(out, "alpha = {}", num(c.alpha_deg));
+        }
+    }
+    let _ = writeln!(out, "speed = {}", num(c.speed));
+    let _ = writeln!(out, "altitude = {}", num(c.altitude));
+    out
+}
+
+/// A TOML float that reads back to the same f64 (Rust's shortest round-trip form).
+fn num(x: f64) -> String {
+    let s = format!("{x:?}");
+    if s.contains(['.', 'e', 'E', 'n', 'i']) {
+        s
+    } else {
+        format!("{s}.0")
+    }
+}
+
+fn quoted(s: &str) -> String {
+    toml::Value::String(s.to_string()).to_string()
+}
+
+fn table_key(key: &str) -> String {
+    let bare = !key.is_empty()
+        && key
+            .chars()
+            .all(|c| c.is_ascii_alphanumeric() || c == '_' || c == '-');
+    if bare {
+        key.to_string()
+    } else {
+        quoted(key)
+    }
+}

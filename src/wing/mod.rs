@@ -1,0 +1,11 @@
+//! The wing model (stations, airfoils, controls, default condition) and its TOML file format.
+//!
+//! Nothing here solves anything: the solver reads a [`Wing`] through [`Wing::section_at`].
+
+pub mod file;
+pub mod geometry;
+pub mod validate;
+mod model;
+
+pub use geometry::Geometry;
+pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};

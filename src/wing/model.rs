@@ -1,0 +1,212 @@
+//! Plain data for a wing described station by station.
+
+use std::collections::BTreeMap;
+
+/// Section (2-D) properties of one named airfoil.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Airfoil {
+    /// Section lift-curve slope, per radian.
+    pub lift_slope: f64,
+    /// Zero-lift angle of attack, degrees.
+    pub alpha_zero_lift_deg: f64,
+    /// Maximum section lift coefficient.
+    pub cl_max: f64,
+    /// Profile-drag polar `cd = cd0 + cd1*cl + cd2*cl^2`.
+    pub cd0: f64,
+    /// Linear term of the profile-drag polar.
+    pub cd1: f64,
+    /// Quadratic term of the profile-drag polar.
+    pub cd2: f64,
+}
+
+impl Default for Airfoil {
+    /// A thin-airfoil section: slope 2 pi, no camber, no drag.
+    fn default() -> Self {
+        Self {
+            lift_slope: std::f64::consts::TAU,
+            alpha_zero_lift_deg: 0.0,
+            cl_max: 1.4,
+            cd0: 0.0,
+            cd1: 0.0,
+            cd2: 0.0,
+        }
+    }
+}
+
+/// One spanwise station; the wing varies linearly in `y` between stations.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Station {
+    /// Spanwise position, m, positive to the right looking forward.
+    pub y: f64,
+    /// Local chord, m.
+    pub chord: f64,
+    /// Local incidence relative to the wing reference line, degrees, nose-up positive.
+    pub twist_deg: f64,
+    /// Key into [`Wing::airfoils`].
+    pub airfoil: String,
+    /// Leading-edge offset aft of the reference, m.
+    pub x_le: f64,
+    /// Leading-edge height, m.
+    pub z: f64,
+}
+
+/// How a control surface deflects on the two halves of the wing.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum ControlKind {
+    /// Both halves deflect alike.
+    Flap,
+    /// The right half deflects by `deflection`, the left by its negative.
+    Aileron,
+}
+
+impl ControlKind {
+    /// The name used in wing files.
+    #[must_use]
+    pub const fn as_str(self) -> &'static str {
+        match self {
+            Self::Flap => "flap",
+            Self::Aileron => "aileron",
+        }
+    }
+}
+
+/// A plain trailing-edge control surface, given on the right half and mirrored on the left.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Control {
+    /// Free-text name.
+    pub name: String,
+    /// Flap or aileron.
+    pub kind: ControlKind,
+    /// Inner edge on the right half, m.
+    pub y_inner: f64,
+    /// Outer edge on the right half, m.
+    pub y_outer: f64,
+    /// Control chord over local chord, in (0, 1).
+    pub chord_fraction: f64,
+    /// Deflection, degrees, trailing edge down positive (the right half's, for an aileron).
+    pub deflection_deg: f64,
+    /// Optional factor replacing the thin-airfoil flap effectiveness.
+    pub effectiveness: Option<f64>,
+}
+
+/// The flight condition: angle of attack (or a target CL), true airspeed and ISA altitude.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Condition {
+    /// Angle of attack of the wing reference line, degrees.
+    pub alpha_deg: f64,
+    /// When set, solve for the angle of attack that gives this CL instead.
+    pub target_cl: Option<f64>,
+    /// True airspeed, m/s.
+    pub speed: f64,
+    /// ISA geopotential altitude, m.
+    pub altitude: f64,
+}
+
+impl Default for Condition {
+    fn default() -> Self {
+        Self {
+            alpha_deg: 0.0,
+            target_cl: None,
+            speed: 20.0,
+            altitude: 0.0,
+        }
+    }
+}
+
+/// Section properties at one spanwise position, interpolated between stations.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Section {
+    /// Chord, m.
+    pub chord: f64,
+    /// Twist, radians.
+    pub twist: f64,
+    /// Blended section properties (slope per radian, `alpha_zero_lift_deg` in degrees).
+    pub airfoil: BlendedAirfoil,
+    /// Leading-edge offset aft, m.
+    pub x_le: f64,
+}
+
+/// Airfoil properties blended linearly between two stations' airfoils.
+pub type BlendedAirfoil = Airfoil;
+
+/// A whole wing: stations, their airfoils, control surfaces and a default condition.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Wing {
+    /// Free-text name.
+    pub name: String,
+    /// True: stations cover the right half from y = 0 and are mirrored.
+    pub symmetric: bool,
+    /// Stations in strictly increasing `y`.
+    pub stations: Vec<Station>,
+    /// Airfoils by key.
+    pub airfoils: BTreeMap<String, Airfoil>,
+    /// Control surfaces.
+    pub controls: Vec<Control>,
+    /// The file's default condition.
+    pub condition: Condition,
+}
+
+impl Wing {
+    /// Spanwise extent `(y_left_tip, y_right_tip)`, m.
+    #[must_use]
+    pub fn span_ends(&self) -> (f64, f64) {
+        let last = self.stations.last().map_or(0.0, |s| s.y);
+        if self.symmetric {
+            (-last, last)
+        } else {
+            (self.stations.first().map_or(0.0, |s| s.y), last)
+        }
+    }
+
+    /// Section properties at `y` (m). A symmetric wing is mirrored about y = 0; positions
+    /// past the tips are clamped to the tip station.
+    #[must_use]
+    pub fn section_at(&self, y: f64) -> Section {
+        let y = if self.symmetric { y.abs() } else { y };
+        let stations = &self.stations;
+        let upper = stations.partition_point(|s| s.y < y).clamp(1, stations.len() - 1);
+        let (a, b) = (&stations[upper - 1], &stations[upper]);
+        let t = ((y - a.y) / (b.y - a.y)).clamp(0.0, 1.0);
+        let lerp = |p: f64, q: f64| p + (q - p) * t;
+        let fa = self.airfoil_or_default(&a.airfoil);
+        let fb = self.airfoil_or_default(&b.airfoil);
+        Section {
+            chord: lerp(a.chord, b.chord),
+            twist: lerp(a.twist_deg, b.twist_deg).to_radians(),
+            x_le: lerp(a.x_le, b.x_le),
+            airfoil: Airfoil {
+                lift_slope: lerp(fa.lift_slope, fb.lift_slope),
+                alpha_zero_lift_deg: lerp(fa.alpha_zero_lift_deg, fb.alpha_zero_lift_deg),
+                cl_max: lerp(fa.cl_max, fb.cl_max),
+                cd0: lerp(fa.cd0, fb.cd0),
+                cd1: lerp(fa.cd1, fb.cd1),
+                cd2: lerp(fa.cd2, fb.cd2),
+            },
+        }
+    }
+
+    /// The airfoil with this key; a validated wing always has it, an edited one may not.
+    fn airfoil_or_default(&self, key: &str) -> Airfoil {
+        self.airfoils.get(key).cloned().unwrap_or_default()
+    }
+
+    /// The same wing mirrored left to right (stations, and aileron deflections flipped).
+    #[must_use]
+    pub fn mirrored(&self) -> Self {
+        let mut wing = self.clone();
+        if !self.symmetric {
+            wing.stations = self
+                .stations
+                .iter()
+                .rev()
+                .map(|s| Station { y: -s.y, ..s.clone() })
+                .collect();
+        }
+        for control in &mut wing.controls {
+            if control.kind == ControlKind::Aileron {
+                control.deflection_deg = -control.deflection_deg;
+            }
+        }
+        wing
+    }
+}

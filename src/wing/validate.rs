@@ -1,0 +1,295 @@
+//! The rules a wing must meet before it is solved, and the warnings where lifting-line
+//! theory is weak. Shared by the file reader and the workbench's editor.
+
+use std::fmt;
+
+use super::{Geometry, Wing};
+
+/// Where in a wing a problem sits.
+#[derive(Debug, Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
+pub enum Place {
+    /// The top level of the file.
+    Wing,
+    /// Station by zero-based index.
+    Station(usize),
+    /// Airfoil by key.
+    Airfoil(String),
+    /// Control by zero-based index.
+    Control(usize),
+    /// The `[condition]` table.
+    Condition,
+}
+
+impl fmt::Display for Place {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        match self {
+            Self::Wing => write!(f, "wing"),
+            Self::Station(i) => write!(f, "station {}", i + 1),
+            Self::Airfoil(key) => write!(f, "airfoil {key}"),
+            Self::Control(i) => write!(f, "control {}", i + 1),
+            Self::Condition => write!(f, "condition"),
+        }
+    }
+}
+
+/// One broken rule: the place, the field and what is wrong.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Problem {
+    /// Where.
+    pub place: Place,
+    /// The wing-file key.
+    pub field: &'static str,
+    /// What is wrong, in a few words.
+    pub reason: String,
+}
+
+impl fmt::Display for Problem {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(f, "{}: {}: {}", self.place, self.field, self.reason)
+    }
+}
+
+fn problem(place: Place, field: &'static str, reason: impl Into<String>) -> Problem {
+    Problem {
+        place,
+        field,
+        reason: reason.into(),
+    }
+}
+
+/// Checks every rule; returns all problems in file order (empty when the wing is valid).
+#[must_use]
+pub fn problems(wing: &Wing) -> Vec<Problem> {
+    let mut out = Vec::new();
+    station_problems(wing, &mut out);
+    airfoil_problems(wing, &mut out);
+    control_problems(wing, &mut out);
+    condition_problems(wing, &mut out);
+    out
+}
+
+fn finite(out: &mut Vec<Problem>, place: &Place, field: &'static str, value: f64) -> bool {
+    if value.is_finite() {
+        true
+    } else {
+        out.push(problem(place.clone(), field, format!("must be a finite number (got {value})")));
+        false
+    }
+}
+
+fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
+    let n = wing.stations.len();
+    if n < 2 {
+        out.push(problem(
+            Place::Wing,
+            "station",
+            format!("at least two stations are needed (got {n})"),
+        ));
+    }
+    for (i, s) in wing.stations.iter().enumerate() {
+        let place = Place::Station(i);
+        let outermost = i + 1 == n || (!wing.symmetric && i == 0);
+        if finite(out, &place, "y", s.y) {
+            if i == 0 && wing.symmetric && s.y != 0.0 {
+                out.push(problem(
+                    place.clone(),
+                    "y",
+                    format!("a symmetric wing's first station must be at y = 0 (got {})", s.y),
+                ));
+            }
+            if i > 0 && wing.stations[i - 1].y.is_finite() && s.y <= wing.stations[i - 1].y {
+                out.push(problem(
+                    place.clone(),
+                    "y",
+                    format!(
+                        "must be greater than the previous station's y = {} (got {})",
+                        wing.stations[i - 1].y,
+                        s.y
+                    ),
+                ));
+            }
+        }
+        if finite(out, &place, "chord", s.chord) {
+            if s.chord < 0.0 {
+                out.push(problem(place.clone(), "chord", format!("must be > 0 (got {})", s.chord)));
+            } else if s.chord == 0.0 && !outermost {
+                out.push(problem(
+                    place.clone(),
+                    "chord",
+                    "may be 0 only at the outermost station (a pointed tip)",
+                ));
+            }
+        }
+        finite(out, &place, "twist", s.twist_deg);
+        finite(out, &place, "x_le", s.x_le);
+        finite(out, &place, "z", s.z);
+        if !wing.airfoils.contains_key(&s.airfoil) {
+            let known: Vec<&str> = wing.airfoils.keys().map(String::as_str).collect();
+            out.push(problem(
+                place,
+                "airfoil",
+                format!("unknown airfoil `{}`{}", s.airfoil, suggestion(&s.airfoil, &known)),
+            ));
+        }
+    }
+}
+
+/// " (did you mean `x`?)" for the closest candidate, or a list of the known ones.
+#[must_use]
+pub fn suggestion(word: &str, candidates: &[&str]) -> String {
+    let best = candidates
+        .iter()
+        .map(|c| (strsim::jaro_winkler(word, c), *c))
+        .max_by(|a, b| a.0.total_cmp(&b.0));
+    match best {
+        Some((score, c)) if score >= 0.7 => format!(" (did you mean `{c}`?)"),
+        _ if candidates.is_empty() => " (no [airfoil.*] tables are defined)".to_string(),
+        _ => format!(" (known: {})", candidates.join(", ")),
+    }
+}
+
+fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
+    for (key, a) in &wing.airfoils {
+        let place = Place::Airfoil(key.clone());
+        if finite(out, &place, "lift_slope", a.lift_slope) && a.lift_slope <= 0.0 {
+            out.push(problem(
+                place.clone(),
+                "lift_slope",
+                format!("must be > 0 per radian (got {})", a.lift_slope),
+            ));
+        }
+        finite(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg);
+        if finite(out, &place, "cl_max", a.cl_max) && a.cl_max <= 0.0 {
+            out.push(problem(place.clone(), "cl_max", format!("must be > 0 (got {})", a.cl_max)));
+        }
+        if finite(out, &place, "cd0", a.cd0) && a.cd0 < 0.0 {
+            out.push(problem(place.clone(), "cd0", format!("must be >= 0 (got {})", a.cd0)));
+        }
+        finite(out, &place, "cd1", a.cd1);
+        finite(out, &place, "cd2", a.cd2);
+    }
+}
+
+fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
+    let (left, right) = wing.span_ends();
+    let reach = right.min(-left).max(0.0);
+    for (i, c) in wing.controls.iter().enumerate() {
+        let place = Place::Control(i);
+        let inner_ok = finite(out, &place, "y_inner", c.y_inner);
+        let outer_ok = finite(out, &place, "y_outer", c.y_outer);
+        if inner_ok && c.y_inner < 0.0 {
+            out.push(problem(
+                place.clone(),
+                "y_inner",
+                format!("must be >= 0 on the right half (got {})", c.y_inner),
+            ));
+        }
+        if inner_ok && outer_ok && c.y_inner >= c.y_outer {
+            out.push(problem(
+                place.clone(),
+                "y_outer",
+                format!("must be greater than y_inner = {} (got {})", c.y_inner, c.y_outer),
+            ));
+        }
+        if outer_ok && c.y_outer > reach + 1e-9 {
+            out.push(problem(
+                place.clone(),
+                "y_outer",
+                format!("lies outside the span: the tip is at y = {reach} (got {})", c.y_outer),
+            ));
+        }
+        if finite(out, &place, "chord_fraction", c.chord_fraction)
+            && !(c.chord_fraction > 0.0 && c.chord_fraction < 1.0)
+        {
+            out.push(problem(
+                place.clone(),
+                "chord_fraction",
+                format!("must be between 0 and 1, exclusive (got {})", c.chord_fraction),
+            ));
+        }
+        finite(out, &place, "deflection", c.deflection_deg);
+        if let Some(e) = c.effectiveness {
+            if finite(out, &place, "effectiveness", e) && e <= 0.0 {
+                out.push(problem(place.clone(), "effectiveness", format!("must be > 0 (got {e})")));
+            }
+        }
+    }
+}
+
+fn condition_problems(wing: &Wing, out: &mut Vec<Problem>) {
+    out.extend(condition_rules(&wing.condition));
+}
+
+/// The rules on a flight condition (also applied to command-line overrides).
+#[must_use]
+pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
+    let mut out = Vec::new();
+    let place = Place::Condition;
+    finite(&mut out, &place, "alpha", c.alpha_deg);
+    if let Some(cl) = c.target_cl {
+        finite(&mut out, &place, "cl", cl);
+    }
+    if finite(&mut out, &place, "speed", c.speed) && c.speed <= 0.0 {
+        out.push(problem(place.clone(), "speed", format!("must be > 0 m/s (got {})", c.speed)));
+    }
+    if finite(&mut out, &place, "altitude", c.altitude)
+        && !(crate::atmosphere::MIN_ALTITUDE..=crate::atmosphere::MAX_ALTITUDE).contains(&c.altitude)
+    {
+        out.push(problem(
+            place,
+            "altitude",
+            format!(
+                "must be within the standard atmosphere, {} to {} m (got {})",
+                crate::atmosphere::MIN_ALTITUDE,
+                crate::atmosphere::MAX_ALTITUDE,
+                c.altitude
+            ),
+        ));
+    }
+    out
+}
+
+/// Where lifting-line theory is weak for this wing (not errors).
+#[must_use]
+pub fn warnings(wing: &Wing, geometry: &Geometry) -> Vec<String> {
+    let mut out = Vec::new();
+    if geometry.aspect_ratio < 4.0 {
+        out.push(format!(
+            "aspect ratio {:.2} is below 4: lifting-line theory overestimates the lift slope",
+            geometry.aspect_ratio
+        ));
+    }
+    if geometry.max_sweep_deg > 20.0 {
+        out.push(format!(
+            "quarter-chord sweep up to {:.1} deg: this solver ignores sweep, results are optimistic",
+            geometry.max_sweep_deg
+        ));
+    }
+    if geometry.max_dihedral_deg > 15.0 {
+        out.push(format!(
+            "dihedral up to {:.1} deg: this solver treats the wing as flat",
+            geometry.max_dihedral_deg
+        ));
+    }
+    if !wing.symmetric && geometry.y_mid.abs() > 0.01 * geometry.span {
+        out.push(format!(
+            "the span is not centred on y = 0 (midpoint {:.3} m): moments are taken about y = 0",
+            geometry.y_mid
+        ));
+    }
+    for c in &wing.controls {
+        if c.chord_fraction > 0.4 {
+            out.push(format!(
+                "control {}: chord fraction {:.2} above 0.4, thin-airfoil effectiveness is optimistic",
+                c.name, c.chord_fraction
+            ));
+        }
+        if c.deflection_deg.abs() > 20.0 {
+            out.push(format!(
+                "control {}: deflection {:.1} deg beyond 20 deg, linear flap theory overestimates it",
+                c.name, c.deflection_deg
+            ));
+        }
+    }
+    out
+}

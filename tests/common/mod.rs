@@ -1,0 +1,91 @@
+//! Wings built in code for the tests.
+#![allow(dead_code)]
+
+use std::collections::BTreeMap;
+use std::f64::consts::TAU;
+
+use gammaline::wing::{Airfoil, Condition, Control, ControlKind, Station, Wing};
+
+/// A thin-airfoil section (slope 2 pi, symmetric, no drag).
+pub fn thin() -> Airfoil {
+    Airfoil {
+        lift_slope: TAU,
+        alpha_zero_lift_deg: 0.0,
+        cl_max: 1.5,
+        cd0: 0.0,
+        cd1: 0.0,
+        cd2: 0.0,
+    }
+}
+
+pub fn station(y: f64, chord: f64, twist_deg: f64) -> Station {
+    Station {
+        y,
+        chord,
+        twist_deg,
+        airfoil: "a".into(),
+        x_le: 0.0,
+        z: 0.0,
+    }
+}
+
+/// A symmetric wing from right-half stations, all of airfoil `a`.
+pub fn wing(stations: Vec<Station>, airfoil: Airfoil) -> Wing {
+    Wing {
+        name: "test".into(),
+        symmetric: true,
+        stations,
+        airfoils: BTreeMap::from([("a".to_string(), airfoil)]),
+        controls: Vec::new(),
+        condition: Condition::default(),
+    }
+}
+
+/// Untwisted straight-tapered wing of span 2 (semispan 1) with the given AR and taper.
+pub fn tapered(aspect_ratio: f64, taper: f64) -> Wing {
+    let span = 2.0;
+    let area = span * span / aspect_ratio;
+    let root = 2.0 * area / (span * (1.0 + taper));
+    wing(vec![station(0.0, root, 0.0), station(1.0, root * taper, 0.0)], thin())
+}
+
+pub fn rectangular(aspect_ratio: f64) -> Wing {
+    tapered(aspect_ratio, 1.0)
+}
+
+/// An elliptic planform of span 2 and root chord `c0` with stations exactly at the
+/// right-half collocation points of an `n`-term solve, the root and the tip, so the solver sees
+/// the exact elliptic chord at every collocation point.
+pub fn elliptic_at_collocation(c0: f64, n: usize) -> Wing {
+    let mut ys: Vec<f64> = (1..=n)
+        .map(|k| -(k as f64 * std::f64::consts::PI / (n as f64 + 1.0)).cos())
+        .filter(|y| *y > 1e-12)
+        .collect();
+    ys.push(0.0);
+    ys.push(1.0);
+    ys.sort_by(f64::total_cmp);
+    let stations = ys
+        .into_iter()
+        .map(|y| station(y, c0 * (1.0 - y * y).max(0.0).sqrt(), 0.0))
+        .collect();
+    wing(stations, thin())
+}
+
+pub fn aileron(y_inner: f64, y_outer: f64, fraction: f64, deflection_deg: f64) -> Control {
+    Control {
+        name: "aileron".into(),
+        kind: ControlKind::Aileron,
+        y_inner,
+        y_outer,
+        chord_fraction: fraction,
+        deflection_deg,
+        effectiveness: None,
+    }
+}
+
+pub fn at_alpha(alpha_deg: f64) -> Condition {
+    Condition {
+        alpha_deg,
+        ..Condition::default()
+    }
+}
