@@ -8,6 +8,8 @@
 //! - [`cli`]: the headless command line; [`tui`]: the terminal workbench.
 
 pub mod atmosphere;
+pub mod cli;
 pub mod report;
 pub mod solver;
+pub mod text;
 pub mod wing;

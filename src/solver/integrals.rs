@@ -56,11 +56,11 @@ pub struct LoadIntegrals {
 /// Five-point Gauss-Legendre nodes and weights on [-1, 1]
 /// (Abramowitz & Stegun, *Handbook of Mathematical Functions*, 1964, table 25.4).
 const GAUSS5: [(f64, f64); 5] = [
-    (-0.906_179_845_938_664_0, 0.236_926_885_056_189_1),
+    (-0.906_179_845_938_664, 0.236_926_885_056_189_1),
     (-0.538_469_310_105_683_1, 0.478_628_670_499_366_5),
     (0.0, 0.568_888_888_888_888_9),
     (0.538_469_310_105_683_1, 0.478_628_670_499_366_5),
-    (0.906_179_845_938_664_0, 0.236_926_885_056_189_1),
+    (0.906_179_845_938_664, 0.236_926_885_056_189_1),
 ];
 
 /// Breakpoints in theta: the tips, every station (mirrored), the root and control edges,
@@ -115,7 +115,10 @@ pub fn integrate(
     out
 }
 
-#[expect(clippy::too_many_arguments, reason = "one quadrature point's worth of data")]
+#[expect(
+    clippy::too_many_arguments,
+    reason = "one quadrature point's worth of data"
+)]
 fn add_point(
     out: &mut LoadIntegrals,
     w: f64,
@@ -130,18 +133,24 @@ fn add_point(
     let f = section.airfoil;
     // c*cd = c cd0 + cd1 (c cl) + cd2 (c cl)^2 / c
     let ccd_linear = (c * f.cd0 + f.cd1 * ccl.0, f.cd1 * ccl.1);
-    let mut profile = Quadratic::default();
-    profile.p0 = ccd_linear.0;
-    profile.p1 = ccd_linear.1;
+    let mut profile = Quadratic {
+        p0: ccd_linear.0,
+        p1: ccd_linear.1,
+        p2: 0.0,
+    };
     if c > 0.0 {
         profile.add_product(f.cd2 / c, ccl, ccl);
     }
-    for (target, scale) in [(&mut out.cdp, w / area), (&mut out.cn_profile, w * y / (area * span))] {
+    for (target, scale) in [
+        (&mut out.cdp, w / area),
+        (&mut out.cn_profile, w * y / (area * span)),
+    ] {
         target.p0 += scale * profile.p0;
         target.p1 += scale * profile.p1;
         target.p2 += scale * profile.p2;
     }
-    out.cn_induced.add_product(w * y / (area * span), ccl, induced);
+    out.cn_induced
+        .add_product(w * y / (area * span), ccl, induced);
     out.cdi.add_product(w / area, ccl, induced);
     if y >= 0.0 {
         out.right_moment.add_product(w * y, ccl, (1.0, 0.0));

@@ -105,7 +105,10 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     }
     let responses =
         fourier::responses(fourier::matrix(&thetas, &mu), &rhs).ok_or(SolveError::Singular)?;
-    let edges: Vec<f64> = control_spans.iter().flat_map(|s| [s.y_from, s.y_to]).collect();
+    let edges: Vec<f64> = control_spans
+        .iter()
+        .flat_map(|s| [s.y_from, s.y_to])
+        .collect();
     let integrals = integrals::integrate(
         wing,
         map,
@@ -358,7 +361,11 @@ impl Prepared {
             .wing
             .stations
             .iter()
-            .map(|s| evaluator.at_theta(&fourier, self.map.theta(s.y), alpha))
+            .map(|s| SpanPoint {
+                // exactly the station's y, not y(theta(y)) with its rounding
+                y: s.y,
+                ..evaluator.at_theta(&fourier, self.map.theta(s.y), alpha)
+            })
             .collect();
         let mean_slope = self.integrals.mean_lift_slope;
         let cl_alpha = self.cl_alpha();

@@ -3,9 +3,11 @@
 //! Nothing here solves anything: the solver reads a [`Wing`] through [`Wing::section_at`].
 
 pub mod file;
+mod fingerprint;
 pub mod geometry;
-pub mod validate;
 mod model;
+pub mod validate;
 
+pub use fingerprint::fingerprint;
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};

@@ -1,0 +1,146 @@
+//! The headless command line: `solve`, `check`, `sweep`, and the workbench launchers.
+//! A thin shell over the core: parse flags, read files, call the solver, print a report.
+
+mod commands;
+
+use std::path::PathBuf;
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand, ValueEnum};
+
+/// Exit code for bad input (a broken wing file or a bad flag value).
+pub const EXIT_BAD_INPUT: u8 = 2;
+
+/// Finite-wing analysis by lifting-line theory.
+///
+/// With no command, opens the terminal workbench on the last session (or the bundled
+/// example wings). Results are preliminary design estimates: verify by test and licensed
+/// practice; local airworthiness rules govern.
+#[derive(Debug, Parser)]
+#[command(name = "gammaline", version, about, long_about)]
+pub struct Cli {
+    #[command(subcommand)]
+    command: Option<Command>,
+    /// Session folder (default: the user config directory; env GAMMALINE_SESSION_DIR).
+    #[arg(long, global = true, value_name = "DIR")]
+    session: Option<PathBuf>,
+    /// Draw with ASCII only (automatic when the locale is not UTF-8).
+    #[arg(long, global = true)]
+    ascii: bool,
+}
+
+#[derive(Debug, Subcommand)]
+enum Command {
+    /// Solve one wing at one condition and print the result.
+    Solve(SolveArgs),
+    /// Solve one wing over a range of angles of attack (a lift and drag polar).
+    Sweep(SweepArgs),
+    /// Validate wing files and print each one's geometry summary.
+    Check {
+        /// Wing files (TOML).
+        #[arg(required = true, value_name = "FILE")]
+        files: Vec<PathBuf>,
+    },
+    /// Open wing files in the terminal workbench.
+    Open {
+        /// Wing files (TOML).
+        #[arg(required = true, value_name = "FILE")]
+        files: Vec<PathBuf>,
+    },
+}
+
+/// Flags that override the wing file's `[condition]`.
+#[derive(Debug, clap::Args)]
+struct ConditionArgs {
+    /// True airspeed, m/s.
+    #[arg(long, value_name = "M/S", allow_negative_numbers = true)]
+    speed: Option<f64>,
+    /// ISA geopotential altitude, m.
+    #[arg(long, value_name = "M", allow_negative_numbers = true)]
+    altitude: Option<f64>,
+    /// Number of sine terms in the series.
+    #[arg(long, value_name = "N")]
+    terms: Option<usize>,
+}
+
+#[derive(Debug, clap::Args)]
+struct SolveArgs {
+    /// Wing files (TOML); several give one result each (JSON: one object per line).
+    #[arg(value_name = "FILE", required = true)]
+    files: Vec<PathBuf>,
+    /// Angle of attack of the wing reference line, degrees.
+    #[arg(
+        long,
+        value_name = "DEG",
+        allow_negative_numbers = true,
+        conflicts_with = "cl"
+    )]
+    alpha: Option<f64>,
+    /// Solve for the angle of attack that gives this wing lift coefficient.
+    #[arg(long, value_name = "CL", allow_negative_numbers = true)]
+    cl: Option<f64>,
+    #[command(flatten)]
+    condition: ConditionArgs,
+    /// Output format.
+    #[arg(long, value_enum, default_value_t = Format::Table)]
+    format: Format,
+}
+
+#[derive(Debug, clap::Args)]
+struct SweepArgs {
+    /// Wing file (TOML).
+    #[arg(value_name = "FILE")]
+    file: PathBuf,
+    /// First angle of attack, degrees.
+    #[arg(long, value_name = "DEG", allow_negative_numbers = true, default_value_t = -4.0)]
+    from: f64,
+    /// Last angle of attack, degrees.
+    #[arg(
+        long,
+        value_name = "DEG",
+        allow_negative_numbers = true,
+        default_value_t = 12.0
+    )]
+    to: f64,
+    /// Step, degrees.
+    #[arg(long, value_name = "DEG", default_value_t = 1.0)]
+    step: f64,
+    #[command(flatten)]
+    condition: ConditionArgs,
+    /// Output format (`line` prints the table).
+    #[arg(long, value_enum, default_value_t = Format::Table)]
+    format: Format,
+}
+
+/// How `solve` and `sweep` print.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+enum Format {
+    /// One line to paste into a notebook.
+    Line,
+    /// A readable report.
+    Table,
+    /// One JSON object.
+    Json,
+    /// The spanwise table with a header row.
+    Csv,
+}
+
+/// Parses the command line and runs it; the binary's whole `main`.
+#[must_use]
+pub fn run() -> ExitCode {
+    let cli = Cli::parse();
+    let result = match cli.command {
+        Some(Command::Solve(args)) => commands::solve(&args),
+        Some(Command::Sweep(args)) => commands::sweep(&args),
+        Some(Command::Check { files }) => commands::check(&files),
+        Some(Command::Open { files }) => return commands::workbench(files, cli.session, cli.ascii),
+        None => return commands::workbench(Vec::new(), cli.session, cli.ascii),
+    };
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(message) => {
+            eprintln!("error: {message}");
+            ExitCode::from(EXIT_BAD_INPUT)
+        }
+    }
+}
