@@ -1,0 +1,224 @@
+//! The real binary, end to end: every example wing in every format, the JSON contract,
+//! exit codes and one-line errors.
+
+use std::path::{Path, PathBuf};
+use std::process::{Command, Output};
+
+use serde_json::Value;
+
+fn gammaline(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_gammaline"))
+        .args(args)
+        .current_dir(env!("CARGO_MANIFEST_DIR"))
+        .env("GAMMALINE_SESSION_DIR", std::env::temp_dir().join("gammaline-cli-tests"))
+        .output()
+        .expect("the binary runs")
+}
+
+fn stdout(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stdout).into_owned()
+}
+
+fn stderr(o: &Output) -> String {
+    String::from_utf8_lossy(&o.stderr).into_owned()
+}
+
+fn example_wings() -> Vec<PathBuf> {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
+    let mut files: Vec<PathBuf> = std::fs::read_dir(dir)
+        .expect("wings/ exists")
+        .filter_map(|e| e.ok().map(|e| e.path()))
+        .filter(|p| p.extension().is_some_and(|x| x == "toml"))
+        .collect();
+    files.sort();
+    files
+}
+
+fn json_of(file: &str, extra: &[&str]) -> Value {
+    let mut args = vec!["solve", file, "--format", "json"];
+    args.extend_from_slice(extra);
+    let o = gammaline(&args);
+    assert!(o.status.success(), "{file}: {}", stderr(&o));
+    serde_json::from_str(&stdout(&o)).expect("one JSON object")
+}
+
+/// The keys the core issue spells out: a contract users' scripts rely on.
+const CONTRACT_KEYS: [&str; 18] = [
+    "wing",
+    "method",
+    "alpha_deg",
+    "CL",
+    "CDi",
+    "CDp",
+    "CD",
+    "e",
+    "CL_alpha_per_rad",
+    "aspect_ratio",
+    "area_m2",
+    "span_m",
+    "Cl_roll",
+    "Cn",
+    "root_bending_moment_Nm",
+    "first_stall_y_m",
+    "CL_first_stall",
+    "spanwise",
+];
+
+#[test]
+fn there_are_at_least_four_example_wings() {
+    assert!(example_wings().len() >= 4, "{:?}", example_wings());
+}
+
+#[test]
+fn every_example_solves_in_every_format() {
+    for wing in example_wings() {
+        let file = wing.to_str().expect("utf-8 path");
+        for format in ["line", "table", "json", "csv"] {
+            let o = gammaline(&["solve", file, "--format", format]);
+            assert!(o.status.success(), "{file} {format}: {}", stderr(&o));
+            assert!(!stdout(&o).trim().is_empty(), "{file} {format}: no output");
+        }
+    }
+}
+
+#[test]
+fn json_has_the_contract_keys_with_numbers() {
+    for wing in example_wings() {
+        let v = json_of(wing.to_str().expect("utf-8"), &[]);
+        for key in CONTRACT_KEYS {
+            assert!(v.get(key).is_some(), "{}: missing {key}", wing.display());
+        }
+        for key in ["CL", "CDi", "CD", "CL_alpha_per_rad", "aspect_ratio", "span_m"] {
+            assert!(v[key].as_f64().is_some_and(f64::is_finite), "{key} = {}", v[key]);
+        }
+        let spanwise = v["spanwise"].as_array().expect("array");
+        assert!(spanwise.len() >= 20);
+        for key in ["y_m", "chord_m", "cl", "alpha_i_deg", "gamma_m2_s"] {
+            assert!(spanwise[0].get(key).is_some(), "spanwise lacks {key}");
+        }
+        let ys: Vec<f64> = spanwise.iter().map(|p| p["y_m"].as_f64().expect("y")).collect();
+        assert!(ys.windows(2).all(|w| w[0] < w[1]), "spanwise y ascends");
+    }
+}
+
+#[test]
+fn json_agrees_with_the_library() {
+    let wing = &example_wings()[0];
+    let v = json_of(wing.to_str().expect("utf-8"), &["--alpha", "3.5"]);
+    let w = gammaline::wing::file::read(wing).expect("example reads");
+    let mut c = w.condition;
+    c.alpha_deg = 3.5;
+    c.target_cl = None;
+    let s = gammaline::solver::solve(&w, &c, gammaline::solver::Options::default()).expect("solves");
+    assert_eq!(v["CL"].as_f64(), Some(s.coefficients.cl));
+    assert_eq!(v["CDi"].as_f64(), Some(s.coefficients.cdi));
+    assert_eq!(v["alpha_deg"].as_f64(), Some(3.5));
+}
+
+#[test]
+fn target_cl_lands_on_the_cl() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    let v = json_of(&wing, &["--cl", "0.62"]);
+    let cl = v["CL"].as_f64().expect("CL");
+    assert!((cl - 0.62).abs() < 1e-10, "CL {cl}");
+}
+
+#[test]
+fn flags_override_the_file_condition() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    let v = json_of(&wing, &["--speed", "30", "--altitude", "1000", "--terms", "40"]);
+    assert_eq!(v["speed_m_s"].as_f64(), Some(30.0));
+    assert_eq!(v["terms"].as_u64(), Some(40));
+    // ISA density at 1000 m is 1.11164 kg/m^3 (U.S. Standard Atmosphere 1976, table 1).
+    assert!((v["rho_kg_m3"].as_f64().expect("rho") - 1.11164).abs() < 1e-4);
+}
+
+#[test]
+fn line_format_is_one_line_with_name_method_and_fingerprint() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    let o = gammaline(&["solve", &wing, "--format", "line"]);
+    let text = stdout(&o);
+    assert_eq!(text.lines().count(), 1, "{text}");
+    let v = json_of(&wing, &[]);
+    assert!(text.starts_with(v["wing"].as_str().expect("name")));
+    assert!(text.contains(&format!("N={}", v["terms"])));
+    assert!(text.contains(&format!("wing {}", v["fingerprint"].as_str().expect("hash"))));
+    assert!(text.contains("CL ") && text.contains("CDi ") && text.contains(" e "));
+}
+
+#[test]
+fn csv_has_a_header_and_one_row_per_output_point() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    let o = gammaline(&["solve", &wing, "--format", "csv"]);
+    let text = stdout(&o);
+    let mut lines = text.lines();
+    assert_eq!(lines.next(), Some("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max"));
+    let v = json_of(&wing, &[]);
+    assert_eq!(lines.count(), v["spanwise"].as_array().expect("array").len());
+}
+
+#[test]
+fn sweep_csv_rows_match_the_range_and_single_solves() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    let o = gammaline(&["sweep", &wing, "--from", "-2", "--to", "6", "--step", "2", "--format", "csv"]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let text = stdout(&o);
+    let rows: Vec<&str> = text.lines().skip(1).collect();
+    assert_eq!(rows.len(), 5);
+    let cl_at_4: f64 = rows[3].split(',').nth(1).expect("CL").parse().expect("number");
+    let v = json_of(&wing, &["--alpha", "4"]);
+    assert!((cl_at_4 - v["CL"].as_f64().expect("CL")).abs() < 1e-12);
+}
+
+#[test]
+fn check_accepts_every_example() {
+    let files: Vec<String> = example_wings().iter().map(|p| p.display().to_string()).collect();
+    let mut args = vec!["check"];
+    args.extend(files.iter().map(String::as_str));
+    let o = gammaline(&args);
+    assert!(o.status.success(), "{}", stderr(&o));
+    assert_eq!(stdout(&o).lines().filter(|l| l.starts_with("ok ")).count(), files.len());
+}
+
+#[test]
+fn a_broken_file_gives_one_line_and_exit_code_2() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = dir.path().join("broken.toml");
+    std::fs::write(&path, "name = \"x\"\n[[station]]\ny = 0.0\nchord = -0.2\nairfoil = \"a\"\n[[station]]\ny = 1.0\nchord = 0.1\nairfoil = \"a\"\n[airfoil.a]\nlift_slope = 6.0\nalpha_zero_lift = 0.0\ncl_max = 1.2\ncd0 = 0.01\n")
+        .expect("write");
+    for command in ["check", "solve"] {
+        let o = gammaline(&[command, path.to_str().expect("utf-8")]);
+        assert_eq!(o.status.code(), Some(2));
+        assert!(stdout(&o).is_empty(), "no partial result");
+        let err = stderr(&o);
+        assert_eq!(err.lines().count(), 1, "{err}");
+        assert!(err.starts_with(&format!("error: {}:4:9: station 1: chord:", path.display())), "{err}");
+    }
+}
+
+#[test]
+fn bad_flags_exit_2_without_output() {
+    let wing = example_wings()[0].to_str().expect("utf-8").to_string();
+    for args in [
+        vec!["solve", &wing, "--alpha", "2", "--cl", "0.3"],
+        vec!["solve", &wing, "--speed", "-4"],
+        vec!["solve", &wing, "--terms", "1"],
+        vec!["solve", &wing, "--altitude", "90000"],
+        vec!["solve", &wing, "--format", "xml"],
+        vec!["solve", "no/such/file.toml"],
+    ] {
+        let o = gammaline(&args);
+        assert_eq!(o.status.code(), Some(2), "{args:?}");
+        assert!(stdout(&o).is_empty(), "{args:?}");
+        assert!(stderr(&o).contains("error"), "{args:?}: {}", stderr(&o));
+    }
+}
+
+#[test]
+fn help_is_there_for_every_command() {
+    for command in ["solve", "check", "sweep", "open"] {
+        let o = gammaline(&[command, "--help"]);
+        assert!(o.status.success());
+        assert!(stdout(&o).contains("Usage: gammaline"), "{command}");
+    }
+}
