@@ -10,7 +10,10 @@ fn gammaline(args: &[&str]) -> Output {
     Command::new(env!("CARGO_BIN_EXE_gammaline"))
         .args(args)
         .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .env("GAMMALINE_SESSION_DIR", std::env::temp_dir().join("gammaline-cli-tests"))
+        .env(
+            "GAMMALINE_SESSION_DIR",
+            std::env::temp_dir().join("gammaline-cli-tests"),
+        )
         .output()
         .expect("the binary runs")
 }
@@ -88,15 +91,29 @@ fn json_has_the_contract_keys_with_numbers() {
         for key in CONTRACT_KEYS {
             assert!(v.get(key).is_some(), "{}: missing {key}", wing.display());
         }
-        for key in ["CL", "CDi", "CD", "CL_alpha_per_rad", "aspect_ratio", "span_m"] {
-            assert!(v[key].as_f64().is_some_and(f64::is_finite), "{key} = {}", v[key]);
+        for key in [
+            "CL",
+            "CDi",
+            "CD",
+            "CL_alpha_per_rad",
+            "aspect_ratio",
+            "span_m",
+        ] {
+            assert!(
+                v[key].as_f64().is_some_and(f64::is_finite),
+                "{key} = {}",
+                v[key]
+            );
         }
         let spanwise = v["spanwise"].as_array().expect("array");
         assert!(spanwise.len() >= 20);
         for key in ["y_m", "chord_m", "cl", "alpha_i_deg", "gamma_m2_s"] {
             assert!(spanwise[0].get(key).is_some(), "spanwise lacks {key}");
         }
-        let ys: Vec<f64> = spanwise.iter().map(|p| p["y_m"].as_f64().expect("y")).collect();
+        let ys: Vec<f64> = spanwise
+            .iter()
+            .map(|p| p["y_m"].as_f64().expect("y"))
+            .collect();
         assert!(ys.windows(2).all(|w| w[0] < w[1]), "spanwise y ascends");
     }
 }
@@ -109,7 +126,8 @@ fn json_agrees_with_the_library() {
     let mut c = w.condition;
     c.alpha_deg = 3.5;
     c.target_cl = None;
-    let s = gammaline::solver::solve(&w, &c, gammaline::solver::Options::default()).expect("solves");
+    let s =
+        gammaline::solver::solve(&w, &c, gammaline::solver::Options::default()).expect("solves");
     assert_eq!(v["CL"].as_f64(), Some(s.coefficients.cl));
     assert_eq!(v["CDi"].as_f64(), Some(s.coefficients.cdi));
     assert_eq!(v["alpha_deg"].as_f64(), Some(3.5));
@@ -126,7 +144,10 @@ fn target_cl_lands_on_the_cl() {
 #[test]
 fn flags_override_the_file_condition() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();
-    let v = json_of(&wing, &["--speed", "30", "--altitude", "1000", "--terms", "40"]);
+    let v = json_of(
+        &wing,
+        &["--speed", "30", "--altitude", "1000", "--terms", "40"],
+    );
     assert_eq!(v["speed_m_s"].as_f64(), Some(30.0));
     assert_eq!(v["terms"].as_u64(), Some(40));
     // ISA density at 1000 m is 1.11164 kg/m^3 (U.S. Standard Atmosphere 1976, table 1).
@@ -142,7 +163,10 @@ fn line_format_is_one_line_with_name_method_and_fingerprint() {
     let v = json_of(&wing, &[]);
     assert!(text.starts_with(v["wing"].as_str().expect("name")));
     assert!(text.contains(&format!("N={}", v["terms"])));
-    assert!(text.contains(&format!("wing {}", v["fingerprint"].as_str().expect("hash"))));
+    assert!(text.contains(&format!(
+        "wing {}",
+        v["fingerprint"].as_str().expect("hash")
+    )));
     assert!(text.contains("CL ") && text.contains("CDi ") && text.contains(" e "));
 }
 
@@ -152,32 +176,51 @@ fn csv_has_a_header_and_one_row_per_output_point() {
     let o = gammaline(&["solve", &wing, "--format", "csv"]);
     let text = stdout(&o);
     let mut lines = text.lines();
-    assert_eq!(lines.next(), Some("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max"));
+    assert_eq!(
+        lines.next(),
+        Some("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max")
+    );
     let v = json_of(&wing, &[]);
-    assert_eq!(lines.count(), v["spanwise"].as_array().expect("array").len());
+    assert_eq!(
+        lines.count(),
+        v["spanwise"].as_array().expect("array").len()
+    );
 }
 
 #[test]
 fn sweep_csv_rows_match_the_range_and_single_solves() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();
-    let o = gammaline(&["sweep", &wing, "--from", "-2", "--to", "6", "--step", "2", "--format", "csv"]);
+    let o = gammaline(&[
+        "sweep", &wing, "--from", "-2", "--to", "6", "--step", "2", "--format", "csv",
+    ]);
     assert!(o.status.success(), "{}", stderr(&o));
     let text = stdout(&o);
     let rows: Vec<&str> = text.lines().skip(1).collect();
     assert_eq!(rows.len(), 5);
-    let cl_at_4: f64 = rows[3].split(',').nth(1).expect("CL").parse().expect("number");
+    let cl_at_4: f64 = rows[3]
+        .split(',')
+        .nth(1)
+        .expect("CL")
+        .parse()
+        .expect("number");
     let v = json_of(&wing, &["--alpha", "4"]);
     assert!((cl_at_4 - v["CL"].as_f64().expect("CL")).abs() < 1e-12);
 }
 
 #[test]
 fn check_accepts_every_example() {
-    let files: Vec<String> = example_wings().iter().map(|p| p.display().to_string()).collect();
+    let files: Vec<String> = example_wings()
+        .iter()
+        .map(|p| p.display().to_string())
+        .collect();
     let mut args = vec!["check"];
     args.extend(files.iter().map(String::as_str));
     let o = gammaline(&args);
     assert!(o.status.success(), "{}", stderr(&o));
-    assert_eq!(stdout(&o).lines().filter(|l| l.starts_with("ok ")).count(), files.len());
+    assert_eq!(
+        stdout(&o).lines().filter(|l| l.starts_with("ok ")).count(),
+        files.len()
+    );
 }
 
 #[test]
@@ -192,7 +235,10 @@ fn a_broken_file_gives_one_line_and_exit_code_2() {
         assert!(stdout(&o).is_empty(), "no partial result");
         let err = stderr(&o);
         assert_eq!(err.lines().count(), 1, "{err}");
-        assert!(err.starts_with(&format!("error: {}:4:9: station 1: chord:", path.display())), "{err}");
+        assert!(
+            err.starts_with(&format!("error: {}:4:9: station 1: chord:", path.display())),
+            "{err}"
+        );
     }
 }
 

@@ -12,6 +12,10 @@ use toml::Spanned;
 use super::validate::{self, Place};
 use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
 
+mod locate;
+
+use locate::Locator;
+
 /// A wing file that cannot be used, located to the character.
 #[derive(Debug, Clone, PartialEq, Eq, thiserror::Error)]
 #[error("{}:{line}:{column}: {place}: {field}: {reason}", path.display())]
@@ -54,13 +58,21 @@ pub fn read(path: &Path) -> Result<Wing, WingFileError> {
 pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
     let locate = Locator::new(text, path);
     let raw: RawWing = toml::from_str(text).map_err(|e| locate.serde_error(&e))?;
-    let (wing, spans) = raw.into_wing(path);
-    match validate::problems(&wing).into_iter().next() {
-        None => Ok(wing),
-        Some(p) => {
-            let offset = spans.offset(&p.place, p.field);
-            Err(locate.at(offset, p.place.to_string(), p.field, p.reason))
+    if let Some(condition) = &raw.condition {
+        if let (Some(_), Some(cl)) = (&condition.get_ref().alpha, &condition.get_ref().cl) {
+            let reason = "give alpha or cl, not both".to_string();
+            return Err(locate.at(cl.span().start, &Place::Condition, "cl", reason));
         }
+    }
+    let (wing, spans) = raw.into_wing(path);
+    // The first problem in reading order, so fixing a file top to bottom works.
+    let first = validate::problems(&wing)
+        .into_iter()
+        .map(|p| (spans.offset(&p.place, p.field), p))
+        .min_by_key(|(offset, _)| *offset);
+    match first {
+        None => Ok(wing),
+        Some((offset, p)) => Err(locate.at(offset, &p.place, p.field, p.reason)),
     }
 }
 
@@ -83,130 +95,6 @@ impl Spans {
             .copied()
             .unwrap_or(0)
     }
-}
-
-/// Turns byte offsets into line:column and names the table an offset falls in.
-struct Locator<'a> {
-    text: &'a str,
-    path: &'a Path,
-    /// (offset of a table header, its place name), in file order.
-    headers: Vec<(usize, String)>,
-}
-
-impl<'a> Locator<'a> {
-    fn new(text: &'a str, path: &'a Path) -> Self {
-        let mut headers = Vec::new();
-        let (mut stations, mut controls) = (0, 0);
-        let mut offset = 0;
-        for line in text.split_inclusive('\n') {
-            let t = line.trim();
-            let name = if t.starts_with("[[station]]") {
-                stations += 1;
-                Some(format!("station {stations}"))
-            } else if t.starts_with("[[control]]") {
-                controls += 1;
-                Some(format!("control {controls}"))
-            } else if let Some(rest) = t.strip_prefix("[airfoil.") {
-                Some(format!(
-                    "airfoil {}",
-                    rest.split(']').next().unwrap_or("").trim()
-                ))
-            } else if t.starts_with('[') {
-                Some(t.trim_matches(|c| c == '[' || c == ']').trim().to_string())
-            } else {
-                None
-            };
-            if let Some(name) = name {
-                headers.push((offset, name));
-            }
-            offset += line.len();
-        }
-        Self {
-            text,
-            path,
-            headers,
-        }
-    }
-
-    fn place_of(&self, offset: usize) -> String {
-        self.headers
-            .iter()
-            .take_while(|(start, _)| *start <= offset)
-            .last()
-            .map_or_else(|| "wing".to_string(), |(_, name)| name.clone())
-    }
-
-    fn line_column(&self, offset: usize) -> (usize, usize) {
-        let before = &self.text[..offset.min(self.text.len())];
-        let line = before.matches('\n').count() + 1;
-        let column = before.rsplit('\n').next().map_or(0, |l| l.chars().count()) + 1;
-        (line, column)
-    }
-
-    fn at(&self, offset: usize, place: String, field: &str, reason: String) -> WingFileError {
-        let (line, column) = self.line_column(offset);
-        WingFileError {
-            path: self.path.to_path_buf(),
-            line,
-            column,
-            place,
-            field: field.to_string(),
-            reason,
-        }
-    }
-
-    /// Maps a TOML or serde error (syntax, unknown key, missing field, wrong type) to one line.
-    fn serde_error(&self, e: &toml::de::Error) -> WingFileError {
-        let offset = e.span().map_or(0, |s| s.start);
-        let message = e.message().lines().next().unwrap_or("invalid TOML").trim();
-        let place = self.place_of(offset);
-        if let Some((key, expected)) = unknown_key(message) {
-            let known: Vec<&str> = expected.iter().map(String::as_str).collect();
-            let hint = validate::suggestion(&key, &known).replace(" (known:", " (expected one of:");
-            return self.at(offset, place, &key, format!("unknown key{hint}"));
-        }
-        if let Some(key) = between(message, "missing field `", "`") {
-            return self.at(offset, place, key, "missing (required)".into());
-        }
-        if let Some(variant) = between(message, "unknown variant `", "`") {
-            let reason = format!("unknown kind `{variant}` (expected `flap` or `aileron`)");
-            return self.at(offset, place, "kind", reason);
-        }
-        let field = self.key_at(offset).unwrap_or_else(|| "toml".to_string());
-        self.at(offset, place, &field, message.to_string())
-    }
-
-    /// The key on the line of `offset`, when that line is `key = value`.
-    fn key_at(&self, offset: usize) -> Option<String> {
-        let start = self.text[..offset.min(self.text.len())]
-            .rfind('\n')
-            .map_or(0, |i| i + 1);
-        let line = self.text[start..].lines().next()?;
-        let (key, _) = line.split_once('=')?;
-        let key = key.trim();
-        (!key.is_empty() && !key.starts_with('[')).then(|| key.to_string())
-    }
-}
-
-fn between<'m>(message: &'m str, open: &str, close: &str) -> Option<&'m str> {
-    let rest = message.split_once(open)?.1;
-    Some(rest.split_once(close)?.0)
-}
-
-/// Parses serde's "unknown field `x`, expected one of `a`, `b`" into the key and candidates.
-fn unknown_key(message: &str) -> Option<(String, Vec<String>)> {
-    let key = between(message, "unknown field `", "`")?.to_string();
-    let expected = message
-        .split_once("expected")
-        .map(|(_, list)| {
-            list.split('`')
-                .skip(1)
-                .step_by(2)
-                .map(str::to_string)
-                .collect()
-        })
-        .unwrap_or_default();
-    Some((key, expected))
 }
 
 #[derive(Deserialize)]
@@ -306,7 +194,12 @@ impl RawWing {
             .collect::<Vec<_>>();
         if let Some(last) = stations.len().checked_sub(1) {
             spans.tables.entry(Place::Wing).or_insert(0);
-            let at = spans.offset(&Place::Station(last), "y");
+            // "Too few stations" points at the last station there is.
+            let at = spans
+                .tables
+                .get(&Place::Station(last))
+                .copied()
+                .unwrap_or(0);
             spans.fields.entry((Place::Wing, "station")).or_insert(at);
         }
         let airfoils = self
@@ -455,8 +348,16 @@ pub fn to_toml(wing: &Wing) -> String {
     out
 }
 
-/// A TOML float that reads back to the same f64 (Rust's shortest round-trip form).
+/// A TOML float that reads back to the same f64 (Rust's shortest round-trip form). A wing
+/// being edited may hold a non-finite value; it is written in TOML's spelling so the file
+/// still parses and the reader names the bad value.
 fn num(x: f64) -> String {
+    if x.is_nan() {
+        return "nan".to_string();
+    }
+    if x.is_infinite() {
+        return if x > 0.0 { "inf" } else { "-inf" }.to_string();
+    }
     let s = format!("{x:?}");
     if s.contains(['.', 'e', 'E', 'n', 'i']) {
         s

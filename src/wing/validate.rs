@@ -90,6 +90,15 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
             format!("at least two stations are needed (got {n})"),
         ));
     }
+    // Zero chord is allowed at the tips only; an unsymmetric wing of two pointed tips would
+    // still have no area at all.
+    if n >= 2 && wing.stations.iter().all(|s| s.chord == 0.0) {
+        out.push(problem(
+            Place::Station(0),
+            "chord",
+            "every chord is 0: the wing has no area",
+        ));
+    }
     for (i, s) in wing.stations.iter().enumerate() {
         let place = Place::Station(i);
         let outermost = i + 1 == n || (!wing.symmetric && i == 0);
@@ -152,15 +161,24 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
 /// " (did you mean `x`?)" for the closest candidate, or a list of the known ones.
 #[must_use]
 pub fn suggestion(word: &str, candidates: &[&str]) -> String {
-    let best = candidates
+    match did_you_mean(word, candidates) {
+        Some(best) => format!(" (did you mean `{best}`?)"),
+        None if candidates.is_empty() => " (no [airfoil.*] tables are defined)".to_string(),
+        None => format!(" (known: {})", candidates.join(", ")),
+    }
+}
+
+/// The candidate closest to a misspelt word, when one is close enough to be a likely typo.
+#[must_use]
+pub fn did_you_mean<'c>(word: &str, candidates: &[&'c str]) -> Option<&'c str> {
+    // 0.7 on Jaro-Winkler accepts one or two slips in a short key and rejects unrelated
+    // words (chosen by trying the keys of the format; no source).
+    candidates
         .iter()
         .map(|c| (strsim::jaro_winkler(word, c), *c))
-        .max_by(|a, b| a.0.total_cmp(&b.0));
-    match best {
-        Some((score, c)) if score >= 0.7 => format!(" (did you mean `{c}`?)"),
-        _ if candidates.is_empty() => " (no [airfoil.*] tables are defined)".to_string(),
-        _ => format!(" (known: {})", candidates.join(", ")),
-    }
+        .max_by(|a, b| a.0.total_cmp(&b.0))
+        .filter(|(score, _)| *score >= 0.7)
+        .map(|(_, c)| c)
 }
 
 fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {

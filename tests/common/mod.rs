@@ -46,7 +46,10 @@ pub fn tapered(aspect_ratio: f64, taper: f64) -> Wing {
     let span = 2.0;
     let area = span * span / aspect_ratio;
     let root = 2.0 * area / (span * (1.0 + taper));
-    wing(vec![station(0.0, root, 0.0), station(1.0, root * taper, 0.0)], thin())
+    wing(
+        vec![station(0.0, root, 0.0), station(1.0, root * taper, 0.0)],
+        thin(),
+    )
 }
 
 pub fn rectangular(aspect_ratio: f64) -> Wing {

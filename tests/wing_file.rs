@@ -1,0 +1,348 @@
+//! The wing file format: every broken fixture gives its exact one-line error (through the
+//! library and through `gammaline check`), every example wing loads and solves, and writing a
+//! wing then reading it back gives the same wing.
+
+mod common;
+
+use std::collections::BTreeMap;
+use std::path::{Path, PathBuf};
+use std::process::Command;
+
+use gammaline::solver::{self, Options};
+use gammaline::wing::{file, Airfoil, Condition, Control, ControlKind, Station, Wing};
+use proptest::prelude::*;
+
+const BAD: &str = "tests/fixtures/bad";
+
+/// Example wings that show a warning on purpose (each says so in a comment).
+const MEANT_TO_WARN: &[&str] = &[];
+
+fn manifest() -> &'static Path {
+    Path::new(env!("CARGO_MANIFEST_DIR"))
+}
+
+/// The `.toml` files of a folder under the package, as paths relative to the package.
+fn toml_files(folder: &str) -> Vec<PathBuf> {
+    let mut files: Vec<PathBuf> = std::fs::read_dir(manifest().join(folder))
+        .expect("folder exists")
+        .filter_map(|e| e.ok())
+        .map(|e| Path::new(folder).join(e.file_name()))
+        .filter(|p| p.extension().is_some_and(|x| x == "toml"))
+        .collect();
+    files.sort();
+    files
+}
+
+/// The error line a fixture must give, from its first line `# expect: ...`.
+fn expected_error(text: &str, path: &Path) -> String {
+    let first = text.lines().next().unwrap_or_default();
+    first
+        .strip_prefix("# expect: ")
+        .unwrap_or_else(|| panic!("{}: first line must be `# expect: ...`", path.display()))
+        .to_string()
+}
+
+#[test]
+fn there_is_a_fixture_for_each_kind_of_error() {
+    assert!(toml_files(BAD).len() >= 20, "{:?}", toml_files(BAD));
+}
+
+#[test]
+fn every_bad_fixture_gives_its_exact_error() {
+    let mut wrong = Vec::new();
+    for path in toml_files(BAD) {
+        let text = std::fs::read_to_string(manifest().join(&path)).expect("readable");
+        let expected = expected_error(&text, &path);
+        match file::parse(&text, &path) {
+            Ok(_) => wrong.push(format!(
+                "{}: accepted, expected `{expected}`",
+                path.display()
+            )),
+            Err(e) if e.to_string() != expected => {
+                wrong.push(format!(
+                    "{}:\n  got      {e}\n  expected {expected}",
+                    path.display()
+                ));
+            }
+            Err(_) => {}
+        }
+    }
+    assert!(wrong.is_empty(), "\n{}", wrong.join("\n"));
+}
+
+#[test]
+fn every_error_line_is_one_line_with_a_location() {
+    for path in toml_files(BAD) {
+        let text = std::fs::read_to_string(manifest().join(&path)).expect("readable");
+        let e = file::parse(&text, &path).expect_err("a bad fixture");
+        assert!(!e.to_string().contains('\n'), "{e}");
+        assert!(e.line >= 1 && e.column >= 1, "{e}");
+        assert!(
+            e.line <= text.lines().count(),
+            "{e}: past the end of the file"
+        );
+    }
+}
+
+#[test]
+fn check_prints_each_fixtures_error_and_exits_2() {
+    for path in toml_files(BAD) {
+        let text = std::fs::read_to_string(manifest().join(&path)).expect("readable");
+        let expected = format!("error: {}\n", expected_error(&text, &path));
+        let out = Command::new(env!("CARGO_BIN_EXE_gammaline"))
+            .arg("check")
+            .arg(&path)
+            .current_dir(manifest())
+            .output()
+            .expect("the binary runs");
+        assert_eq!(out.status.code(), Some(2), "{}", path.display());
+        assert_eq!(String::from_utf8_lossy(&out.stderr), expected);
+        assert!(
+            out.stdout.is_empty(),
+            "{}: no partial result",
+            path.display()
+        );
+    }
+}
+
+#[test]
+fn a_missing_file_is_reported_at_its_path() {
+    let e = file::read(Path::new("tests/fixtures/no-such-wing.toml")).expect_err("missing");
+    let line = e.to_string();
+    assert!(
+        line.starts_with("tests/fixtures/no-such-wing.toml:1:1: file: "),
+        "{line}"
+    );
+}
+
+#[test]
+fn every_example_wing_loads_and_solves_without_unmeant_warnings() {
+    let examples = toml_files("wings");
+    assert!(examples.len() >= 4, "{examples:?}");
+    for path in examples {
+        let wing = file::read(&manifest().join(&path))
+            .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+        let solution = solver::solve(&wing, &wing.condition, Options::default())
+            .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+        let name = path
+            .file_name()
+            .and_then(|n| n.to_str())
+            .unwrap_or_default();
+        if MEANT_TO_WARN.contains(&name) {
+            assert!(!solution.warnings.is_empty(), "{name} is meant to warn");
+        } else {
+            assert!(
+                solution.warnings.is_empty(),
+                "{name}: {:?}",
+                solution.warnings
+            );
+        }
+        assert!(solution.coefficients.cl.is_finite(), "{name}");
+    }
+}
+
+#[test]
+fn the_example_wings_are_the_scenarios_they_claim() {
+    // Aspect ratios of the scenarios (issue: sailplane above 20; solar strip "very high").
+    let ar = |name: &str| {
+        let wing = file::read(&manifest().join("wings").join(name)).expect("loads");
+        gammaline::wing::Geometry::of(&wing).aspect_ratio
+    };
+    assert!(ar("sailplane.toml") > 20.0);
+    assert!(ar("solar-strip.toml") > 30.0);
+    let trainer = file::read(&manifest().join("wings/trainer.toml")).expect("loads");
+    let kinds: Vec<ControlKind> = trainer.controls.iter().map(|c| c.kind).collect();
+    assert!(kinds.contains(&ControlKind::Flap) && kinds.contains(&ControlKind::Aileron));
+}
+
+#[test]
+fn every_example_wing_round_trips_through_to_toml() {
+    for path in toml_files("wings") {
+        let wing = file::read(&manifest().join(&path)).expect("loads");
+        let text = file::to_toml(&wing);
+        let again = file::parse(&text, &path).unwrap_or_else(|e| panic!("{e}\n{text}"));
+        assert_eq!(again, wing, "{}", path.display());
+    }
+}
+
+#[test]
+fn whole_numbers_are_accepted_where_numbers_are_expected() {
+    let text = "[[station]]\ny = 0\nchord = 1\nairfoil = \"a\"\n[[station]]\ny = 4\nchord = 1\n\
+                airfoil = \"a\"\n[airfoil.a]\nlift_slope = 6\nalpha_zero_lift = 0\ncl_max = 1\ncd0 = 0\n";
+    let wing = file::parse(text, Path::new("ints.toml")).expect("valid");
+    assert_eq!(wing.stations[1].y, 4.0);
+    assert_eq!(wing.name, "ints", "the name defaults to the file stem");
+}
+
+#[test]
+fn the_first_problem_in_reading_order_is_reported() {
+    // Airfoil table first (bad cl_max), then a station with a bad chord below it.
+    let text = "[airfoil.a]\nlift_slope = 6.0\nalpha_zero_lift = 0.0\ncl_max = 0.0\ncd0 = 0.0\n\
+                [[station]]\ny = 0.0\nchord = -1.0\nairfoil = \"a\"\n\
+                [[station]]\ny = 1.0\nchord = 1.0\nairfoil = \"a\"\n";
+    let e = file::parse(text, Path::new("order.toml")).expect_err("bad");
+    assert_eq!(
+        e.to_string(),
+        "order.toml:4:10: airfoil a: cl_max: must be > 0 (got 0)"
+    );
+}
+
+#[test]
+fn a_non_finite_value_written_out_reads_back_as_a_located_error() {
+    let mut wing = common::tapered(8.0, 0.5);
+    wing.stations[1].twist_deg = f64::NAN;
+    let text = file::to_toml(&wing);
+    let e = file::parse(&text, Path::new("edited.toml")).expect_err("nan");
+    assert_eq!((e.place.as_str(), e.field.as_str()), ("station 2", "twist"));
+}
+
+fn airfoil() -> impl Strategy<Value = Airfoil> {
+    (
+        3.0..7.0f64,
+        -5.0..1.0f64,
+        0.5..2.0f64,
+        0.0..0.02f64,
+        -0.01..0.01f64,
+        0.0..0.02f64,
+    )
+        .prop_map(
+            |(lift_slope, alpha_zero_lift_deg, cl_max, cd0, cd1, cd2)| Airfoil {
+                lift_slope,
+                alpha_zero_lift_deg,
+                cl_max,
+                cd0,
+                cd1,
+                cd2,
+            },
+        )
+}
+
+/// A valid wing: 2-6 stations with increasing y, positive chords, up to two controls.
+fn valid_wing() -> impl Strategy<Value = Wing> {
+    let stations = prop::collection::vec(
+        (0.05..2.0f64, 0.01..1.0f64, -5.0..5.0f64, any::<bool>()),
+        2..6,
+    );
+    let airfoils = prop::collection::vec(airfoil(), 1..3);
+    let controls = prop::collection::vec(
+        (
+            0.0..0.45f64,
+            0.05..0.5f64,
+            0.05..0.95f64,
+            -20.0..20.0f64,
+            any::<bool>(),
+            prop::option::of(0.1..1.0f64),
+        ),
+        0..3,
+    );
+    let condition = (
+        -5.0..10.0f64,
+        prop::option::of(-0.5..1.5f64),
+        1.0..80.0f64,
+        -500.0..20_000.0f64,
+    );
+    (
+        any::<bool>(),
+        "[ -~]{0,20}",
+        stations,
+        airfoils,
+        controls,
+        condition,
+    )
+        .prop_map(
+            |(
+                symmetric,
+                name,
+                raw_stations,
+                raw_airfoils,
+                raw_controls,
+                (alpha, cl, speed, altitude),
+            )| {
+                let airfoils: BTreeMap<String, Airfoil> = raw_airfoils
+                    .into_iter()
+                    .enumerate()
+                    .map(|(i, a)| {
+                        (
+                            if i == 0 {
+                                "root".to_string()
+                            } else {
+                                format!("tip {i}")
+                            },
+                            a,
+                        )
+                    })
+                    .collect();
+                let keys: Vec<String> = airfoils.keys().cloned().collect();
+                let mut y = if symmetric { 0.0 } else { -1.0 };
+                let stations: Vec<Station> = raw_stations
+                    .iter()
+                    .enumerate()
+                    .map(|(i, &(step, chord, twist_deg, offset))| {
+                        if i > 0 {
+                            y += step;
+                        }
+                        Station {
+                            y,
+                            chord,
+                            twist_deg,
+                            airfoil: keys[i % keys.len()].clone(),
+                            x_le: if offset { 0.1 * step } else { 0.0 },
+                            z: if offset { 0.01 * chord } else { 0.0 },
+                        }
+                    })
+                    .collect();
+                let (left, right) = (stations[0].y, y);
+                let reach = if symmetric { right } else { right.min(-left) };
+                let controls = raw_controls
+                    .into_iter()
+                    .enumerate()
+                    .filter(|_| reach > 0.0)
+                    .map(
+                        |(
+                            i,
+                            (inner, width, chord_fraction, deflection_deg, flap, effectiveness),
+                        )| {
+                            let y_inner = inner * reach;
+                            Control {
+                                name: format!("surface \"{i}\""),
+                                kind: if flap {
+                                    ControlKind::Flap
+                                } else {
+                                    ControlKind::Aileron
+                                },
+                                y_inner,
+                                y_outer: (y_inner + width * reach).min(reach),
+                                chord_fraction,
+                                deflection_deg,
+                                effectiveness,
+                            }
+                        },
+                    )
+                    .collect();
+                // A file gives alpha or a target CL; with a target the angle is not written.
+                let condition = Condition {
+                    alpha_deg: if cl.is_some() { 0.0 } else { alpha },
+                    target_cl: cl,
+                    speed,
+                    altitude,
+                };
+                Wing {
+                    name,
+                    symmetric,
+                    stations,
+                    airfoils,
+                    controls,
+                    condition,
+                }
+            },
+        )
+}
+
+proptest! {
+    #[test]
+    fn to_toml_then_parse_gives_the_same_wing(wing in valid_wing()) {
+        let text = file::to_toml(&wing);
+        let again = file::parse(&text, Path::new("random.toml"));
+        prop_assert_eq!(again, Ok(wing), "{}", text);
+    }
+}
