@@ -346,3 +346,44 @@ proptest! {
         prop_assert_eq!(again, Ok(wing), "{}", text);
     }
 }
+
+/// Characters that break TOML structure in interesting ways, plus a multi-byte one.
+const NOISE: &[char] = &[
+    '[', ']', '=', '"', '\'', '\n', '.', '#', ',', '{', '}', '-', '1', 'e', 'x', 'é',
+];
+
+proptest! {
+    /// Damaged example files never panic, and any error is one line inside the file.
+    #[test]
+    fn damaged_files_give_a_located_error_or_a_wing(
+        which in 0usize..4,
+        at in 0.0..1.0f64,
+        cut in 0usize..12,
+        insert in prop::collection::vec(prop::sample::select(NOISE), 0..4),
+    ) {
+        let files = toml_files("wings");
+        let path = &files[which % files.len()];
+        let text = std::fs::read_to_string(manifest().join(path)).expect("readable");
+        let mut chars: Vec<char> = text.chars().collect();
+        let start = ((chars.len() as f64) * at) as usize;
+        let end = (start + cut).min(chars.len());
+        chars.splice(start..end, insert);
+        let damaged: String = chars.into_iter().collect();
+        if let Err(e) = file::parse(&damaged, path) {
+            let line = e.to_string();
+            prop_assert!(!line.contains('\n'), "{}", line);
+            prop_assert!(e.line <= damaged.lines().count().max(1), "{} in\n{}", line, damaged);
+        }
+    }
+}
+
+#[test]
+fn names_with_line_breaks_are_escaped_so_the_error_stays_one_line() {
+    let text = "[[station]]\ny = 0.0\nchord = 1.0\nairfoil = \"ro\\not\"\n\
+                [[station]]\ny = 1.0\nchord = 1.0\nairfoil = \"ro\\not\"\n";
+    let e = file::parse(text, Path::new("escape.toml")).expect_err("no such airfoil");
+    assert_eq!(
+        e.to_string(),
+        "escape.toml:4:11: station 1: airfoil: unknown airfoil `ro\\not` (no [airfoil.*] tables are defined)"
+    );
+}

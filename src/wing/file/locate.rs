@@ -53,9 +53,9 @@ impl<'a> Locator<'a> {
             path: self.path.to_path_buf(),
             line,
             column,
-            place: place.to_string(),
-            field: field.to_string(),
-            reason,
+            place: one_line(&place.to_string()),
+            field: one_line(field),
+            reason: one_line(&reason),
         }
     }
 
@@ -115,10 +115,9 @@ impl<'a> Locator<'a> {
             .trim_end()
             .strip_suffix('=')?
             .trim_end();
-        let start = before
-            .rfind(|c: char| !(c.is_ascii_alphanumeric() || c == '_' || c == '-'))
-            .map_or(0, |i| i + 1);
-        let key = &before[start..];
+        let rest =
+            before.trim_end_matches(|c: char| c.is_ascii_alphanumeric() || c == '_' || c == '-');
+        let key = &before[rest.len()..];
         (!key.is_empty()).then(|| key.to_string())
     }
 }
@@ -128,7 +127,7 @@ impl Locator<'_> {
     fn missing_value(&self, offset: usize) -> Option<String> {
         let before = self.text.get(..offset)?;
         let line_start = before.rfind('\n').map_or(0, |i| i + 1);
-        let after = self.text[offset..].lines().next().unwrap_or("").trim();
+        let after = self.text.get(offset..)?.lines().next().unwrap_or("").trim();
         let empty_after = after.is_empty() || after.starts_with('#');
         (empty_after && before[line_start..].trim_end().ends_with('='))
             .then(|| "TOML syntax: no value after `=`".to_string())
@@ -137,7 +136,8 @@ impl Locator<'_> {
     /// The key of the `key = ...` line that `offset` is on (for a value broken past reading).
     fn line_key(&self, offset: usize) -> Option<String> {
         let start = self.text.get(..offset)?.rfind('\n').map_or(0, |i| i + 1);
-        let (key, _) = self.text[start..].split_once('=')?;
+        let line = self.text[start..].lines().next()?;
+        let (key, _) = line.split_once('=')?;
         let key = key.trim();
         let bare = key
             .chars()
@@ -148,7 +148,7 @@ impl Locator<'_> {
     /// The last key of a `[table]` header when `offset` is at one (a table given where an
     /// array of tables or a value belongs).
     fn header_key(&self, offset: usize) -> Option<String> {
-        let rest = self.text.get(offset..)?.strip_prefix('[')?;
+        let rest = self.text.get(offset..)?.lines().next()?.strip_prefix('[')?;
         let name = rest.split(']').next()?.trim_start_matches('[');
         let key = name
             .rsplit('.')
@@ -157,6 +157,20 @@ impl Locator<'_> {
             .trim_matches(|c| c == '"' || c == '\'');
         (!key.is_empty()).then(|| key.to_string())
     }
+}
+
+/// Keys and airfoil names come from the file and may hold line breaks or other control
+/// characters; they are escaped so the error stays one line.
+fn one_line(s: &str) -> String {
+    s.chars()
+        .map(|c| {
+            if c.is_control() {
+                c.escape_default().to_string()
+            } else {
+                c.to_string()
+            }
+        })
+        .collect()
 }
 
 fn unknown_kind(variant: &str) -> String {
