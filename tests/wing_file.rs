@@ -387,3 +387,15 @@ fn names_with_line_breaks_are_escaped_so_the_error_stays_one_line() {
         "escape.toml:4:11: station 1: airfoil: unknown airfoil `ro\\not` (no [airfoil.*] tables are defined)"
     );
 }
+
+#[test]
+fn the_error_lines_quoted_in_the_docs_are_the_fixtures_own() {
+    let docs = std::fs::read_to_string(manifest().join("docs/wing-file.md")).expect("docs");
+    let quoted: Vec<&str> = docs.lines().filter(|l| l.starts_with(BAD)).collect();
+    assert!(!quoted.is_empty());
+    for line in quoted {
+        let path = line.split(':').next().expect("a path");
+        let text = std::fs::read_to_string(manifest().join(path)).expect(path);
+        assert_eq!(line, expected_error(&text, Path::new(path)));
+    }
+}
