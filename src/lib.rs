@@ -9,5 +9,7 @@
 
 pub mod atmosphere;
 pub mod report;
+pub mod session;
 pub mod solver;
+pub mod tui;
 pub mod wing;
