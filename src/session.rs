@@ -44,6 +44,9 @@ pub struct SessionWing {
 pub struct SessionReference {
     /// The wing in the wing-file format.
     pub wing: String,
+    /// Index of the open wing it was pinned from.
+    #[serde(default)]
+    pub source: usize,
 }
 
 /// Everything needed to put the workbench back as it was.

@@ -62,6 +62,8 @@ pub struct Reference {
     pub wing: Wing,
     /// Its solution.
     pub solved: Result<Solution, String>,
+    /// Index of the open wing it was pinned from.
+    pub source: usize,
 }
 
 /// Settings fixed at launch (some changeable from the workbench).
@@ -434,7 +436,11 @@ impl App {
 
     fn pin(&mut self) {
         let d = self.doc();
-        if self.reference.as_ref().is_some_and(|r| r.wing == d.wing) {
+        if self
+            .reference
+            .as_ref()
+            .is_some_and(|r| r.wing == d.wing && r.source == self.current)
+        {
             self.reference = None;
             self.say("reference unpinned", false);
             return;
@@ -443,6 +449,7 @@ impl App {
         self.reference = Some(Reference {
             wing: d.wing.clone(),
             solved: d.solved.clone(),
+            source: self.current,
         });
         self.say(&msg, false);
     }

@@ -86,7 +86,12 @@ pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
     start.reference = session.reference.as_ref().and_then(|r| {
         let wing = file::parse(&r.wing, Path::new("reference")).ok()?;
         let solved = doc::solve(&wing, options);
-        Some(Reference { wing, solved })
+        let source = r.source.min(start.docs.len().saturating_sub(1));
+        Some(Reference {
+            wing,
+            solved,
+            source,
+        })
     });
     start
 }
@@ -166,6 +171,7 @@ pub fn to_session(app: &App) -> Session {
         current: app.current,
         reference: app.reference.as_ref().map(|r| SessionReference {
             wing: file::to_toml(&r.wing),
+            source: r.source,
         }),
         notebook: Some(app.settings.notebook.clone()),
     }

@@ -18,7 +18,7 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     for (i, doc) in app.docs.iter().enumerate() {
         let current = i == app.current;
         let name: String = clean(doc.title()).chars().take(NAME_WIDTH).collect();
-        let pinned = app.reference.as_ref().is_some_and(|r| r.wing == doc.wing);
+        let pinned = app.reference.as_ref().is_some_and(|r| r.source == i);
         let label = format!(
             "{}{}:{}{}{}",
             if current { t.glyphs.current } else { " " },
