@@ -19,7 +19,10 @@ struct Tmux {
 
 impl Tmux {
     fn available() -> bool {
-        Command::new("tmux").arg("-V").output().is_ok_and(|o| o.status.success())
+        Command::new("tmux")
+            .arg("-V")
+            .output()
+            .is_ok_and(|o| o.status.success())
     }
 
     fn new(name: &str) -> Self {
@@ -37,8 +40,22 @@ impl Tmux {
     }
 
     fn start(&self, command: &str) {
-        let out = self.run(&["new-session", "-d", "-s", "t", "-x", "80", "-y", "24", command]);
-        assert!(out.status.success(), "{}", String::from_utf8_lossy(&out.stderr));
+        let out = self.run(&[
+            "new-session",
+            "-d",
+            "-s",
+            "t",
+            "-x",
+            "80",
+            "-y",
+            "24",
+            command,
+        ]);
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
         self.run(&["set-option", "-s", "escape-time", "10"]);
     }
 
@@ -64,7 +81,10 @@ impl Tmux {
             if ok(&screen) {
                 return screen;
             }
-            assert!(start.elapsed() < DEADLINE, "waited for {what}; screen:\n{screen}");
+            assert!(
+                start.elapsed() < DEADLINE,
+                "waited for {what}; screen:\n{screen}"
+            );
             std::thread::sleep(Duration::from_millis(50));
         }
     }
@@ -72,7 +92,11 @@ impl Tmux {
     fn wait_exit(&self) {
         let start = Instant::now();
         while self.alive() {
-            assert!(start.elapsed() < DEADLINE, "the workbench did not quit:\n{}", self.screen());
+            assert!(
+                start.elapsed() < DEADLINE,
+                "the workbench did not quit:\n{}",
+                self.screen()
+            );
             std::thread::sleep(Duration::from_millis(50));
         }
     }
@@ -104,13 +128,20 @@ fn solved_cl(path: &Path) -> String {
 fn strip_cl(screen: &str) -> Option<String> {
     let at = screen.find("\nCL ")?;
     let rest = &screen[at + 1..];
-    Some(rest.split_whitespace().take(2).collect::<Vec<_>>().join(" "))
+    Some(
+        rest.split_whitespace()
+            .take(2)
+            .collect::<Vec<_>>()
+            .join(" "),
+    )
 }
 
 #[test]
 fn edit_save_copy_quit_and_restore_in_tmux() {
     if !Tmux::available() {
-        eprintln!("SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test");
+        eprintln!(
+            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
+        );
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -119,7 +150,9 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
     let notebook = session.join("notebook.txt");
     let tmux = Tmux::new("main");
     tmux.start(&command(&session, "", &[&wing_path]));
-    let first = tmux.wait_for("the workbench", |s| s.contains("Tapered trainer") && s.contains("\nCL "));
+    let first = tmux.wait_for("the workbench", |s| {
+        s.contains("Tapered trainer") && s.contains("\nCL ")
+    });
     let cl_before = strip_cl(&first).expect("CL shown");
     assert_eq!(cl_before, solved_cl(&wing_path));
 
@@ -129,15 +162,23 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
     tmux.keys(&["C-a", "C-k"]);
     tmux.keys(&["2.0", "Enter"]);
     let edited = tmux.wait_for("the new chord", |s| s.contains("chord = 2.000"));
-    assert!(edited.contains("1:Tapered trainer*"), "marked unsaved:\n{edited}");
+    assert!(
+        edited.contains("1:Tapered trainer*"),
+        "marked unsaved:\n{edited}"
+    );
     let cl_edited = strip_cl(&edited).expect("CL shown");
     assert_ne!(cl_edited, cl_before);
 
     // Save; the strip's CL is what the solver gives for the saved file.
     tmux.keys(&["s"]);
-    tmux.wait_for("the save", |s| s.contains("saved ") && !s.contains("trainer*"));
+    tmux.wait_for("the save", |s| {
+        s.contains("saved ") && !s.contains("trainer*")
+    });
     assert_eq!(cl_edited, solved_cl(&wing_path));
-    assert_eq!(file::read(&wing_path).expect("reads").stations[0].chord, 2.0);
+    assert_eq!(
+        file::read(&wing_path).expect("reads").stations[0].chord,
+        2.0
+    );
 
     // Copy the result line: it lands in the notebook.
     tmux.keys(&["y"]);
@@ -158,7 +199,10 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
     tmux.start(&command(&session, "", &[]));
     let back = tmux.wait_for("the restored session", |s| s.contains("1:Tapered trainer*"));
     assert!(back.contains("2.000"), "{back}");
-    assert!(back.contains("1.00 root"), "the unsaved twist is restored:\n{back}");
+    assert!(
+        back.contains("1.00 root"),
+        "the unsaved twist is restored:\n{back}"
+    );
     tmux.keys(&["q", "y"]);
     tmux.wait_exit();
 }
@@ -166,14 +210,20 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
 #[test]
 fn monochrome_ascii_and_small_terminals_in_tmux() {
     if !Tmux::available() {
-        eprintln!("SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test");
+        eprintln!(
+            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
+        );
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
     let wing_path = tui_support::write_tapered(dir.path());
     let tmux = Tmux::new("plain");
     // LANG=C after the default: a non-UTF-8 locale switches to ASCII glyphs by itself.
-    tmux.start(&command(&dir.path().join("s"), "NO_COLOR=1 LC_ALL=C", &[&wing_path]));
+    tmux.start(&command(
+        &dir.path().join("s"),
+        "NO_COLOR=1 LC_ALL=C",
+        &[&wing_path],
+    ));
     let screen = tmux.wait_for("the workbench", |s| s.contains("+ stations"));
     assert!(screen.is_ascii(), "{screen}");
     tmux.run(&["resize-window", "-t", "t", "-x", "60", "-y", "20"]);
