@@ -167,6 +167,10 @@ fn pin_shows_deltas_and_reference_load() {
     assert!(screen.contains("Δ+"), "{screen}");
     assert!(screen.contains("ref "), "{screen}");
     assert!(
+        screen.contains("M_root"),
+        "the strip grows to hold the deltas: {screen}"
+    );
+    assert!(
         screen.contains("(ref)"),
         "the wing it was pinned from is marked: {screen}"
     );

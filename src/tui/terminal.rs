@@ -21,7 +21,10 @@ impl Guard {
     /// # Errors
     /// When the terminal cannot be set up (e.g. stdout is not a terminal).
     pub fn new() -> io::Result<Self> {
-        let terminal = ratatui::try_init()?;
+        let terminal = ratatui::try_init().inspect_err(|_| {
+            // try_init may fail after raw mode is on; leave the terminal as we found it.
+            ratatui::restore();
+        })?;
         let guard = Self { terminal };
         execute!(io::stdout(), DisableMouseCapture)?;
         Ok(guard)

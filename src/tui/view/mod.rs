@@ -23,7 +23,7 @@ use super::cells::Sheet;
 pub const MIN_WIDTH: u16 = 80;
 /// Smallest terminal height.
 pub const MIN_HEIGHT: u16 = 24;
-/// Rows of the results strip.
+/// Rows of the results strip without a reference.
 pub const STRIP_HEIGHT: u16 = 4;
 
 /// Draws the whole workbench into `area` of `buf`.
@@ -36,7 +36,7 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         Constraint::Length(1),
         Constraint::Length(1),
         Constraint::Min(8),
-        Constraint::Length(STRIP_HEIGHT),
+        Constraint::Length(results::height(app)),
         Constraint::Length(1),
         Constraint::Length(1),
     ])
