@@ -10,6 +10,8 @@
 pub mod atmosphere;
 pub mod cli;
 pub mod report;
+pub mod session;
 pub mod solver;
 pub mod text;
+pub mod tui;
 pub mod wing;

@@ -2,7 +2,6 @@
 
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
-use std::process::ExitCode;
 
 use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
@@ -154,11 +153,4 @@ pub(super) fn check(files: &[PathBuf]) -> Result<(), String> {
         eprintln!("error: {e}");
     }
     last.map_or(Ok(()), Err)
-}
-
-/// Opens the terminal workbench.
-pub(super) fn workbench(files: Vec<PathBuf>, session: Option<PathBuf>, ascii: bool) -> ExitCode {
-    let _ = (files, session, ascii);
-    eprintln!("error: the workbench is not part of this build yet");
-    ExitCode::from(super::EXIT_BAD_INPUT)
 }

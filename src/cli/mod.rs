@@ -27,6 +27,9 @@ pub struct Cli {
     /// Draw with ASCII only (automatic when the locale is not UTF-8).
     #[arg(long, global = true)]
     ascii: bool,
+    /// Notebook file that copied result lines are appended to (env GAMMALINE_NOTEBOOK).
+    #[arg(long, global = true, value_name = "FILE")]
+    notebook: Option<PathBuf>,
 }
 
 #[derive(Debug, Subcommand)]
@@ -133,8 +136,10 @@ pub fn run() -> ExitCode {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
-        Some(Command::Open { files }) => return commands::workbench(files, cli.session, cli.ascii),
-        None => return commands::workbench(Vec::new(), cli.session, cli.ascii),
+        Some(Command::Open { files }) => {
+            return workbench(files, cli.session, cli.ascii, cli.notebook)
+        }
+        None => return workbench(Vec::new(), cli.session, cli.ascii, cli.notebook),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,
@@ -143,4 +148,18 @@ pub fn run() -> ExitCode {
             ExitCode::from(EXIT_BAD_INPUT)
         }
     }
+}
+
+fn workbench(
+    files: Vec<PathBuf>,
+    session_dir: Option<PathBuf>,
+    ascii: bool,
+    notebook: Option<PathBuf>,
+) -> ExitCode {
+    crate::tui::run(crate::tui::LaunchOptions {
+        files,
+        session_dir,
+        ascii,
+        notebook,
+    })
 }

@@ -1,0 +1,525 @@
+//! Workbench state and `update(Action)`: the only place state changes. Drawing reads `&App`.
+
+use std::path::{Path, PathBuf};
+
+use crossterm::event::{KeyEvent, KeyEventKind};
+
+use super::cells::{self, Field, NewRow, Sheet};
+use super::doc::{Cursor, Doc};
+use super::editor::{Editor, Purpose};
+use super::keymap::{self, Action, Dir, ModeKind};
+use super::picker::{self, Picker};
+use super::theme::Theme;
+use crate::solver::{Options, Solution};
+use crate::text::inert;
+use crate::wing::{validate, Wing};
+
+/// What the keyboard is doing.
+#[derive(Debug, Clone)]
+pub enum Mode {
+    /// Moving around.
+    Normal,
+    /// Typing into a cell or a prompt.
+    Edit(Box<Editor>),
+    /// Choosing a wing.
+    Picker(Picker),
+    /// The help overlay, scrolled by this many lines.
+    Help {
+        /// First line shown.
+        scroll: u16,
+    },
+    /// Asking whether to quit with unsaved wings.
+    Confirm,
+}
+
+impl Mode {
+    /// The key-table mode.
+    #[must_use]
+    pub const fn kind(&self) -> ModeKind {
+        match self {
+            Self::Normal => ModeKind::Normal,
+            Self::Edit(_) => ModeKind::Edit,
+            Self::Picker(_) => ModeKind::Picker,
+            Self::Help { .. } => ModeKind::Help,
+            Self::Confirm => ModeKind::Confirm,
+        }
+    }
+}
+
+/// The status line: what just happened.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
+pub struct Status {
+    /// The message (already clean).
+    pub text: String,
+    /// Whether it reports a failure.
+    pub error: bool,
+}
+
+/// A pinned wing to compare against.
+#[derive(Debug, Clone)]
+pub struct Reference {
+    /// The wing as it was when pinned.
+    pub wing: Wing,
+    /// Its solution.
+    pub solved: Result<Solution, String>,
+    /// Index of the open wing it was pinned from.
+    pub source: usize,
+}
+
+/// Settings fixed at launch (some changeable from the workbench).
+#[derive(Debug, Clone)]
+pub struct Settings {
+    /// Solver options.
+    pub options: Options,
+    /// Where copied lines are appended.
+    pub notebook: PathBuf,
+    /// Where the session is kept (`None`: no session is kept).
+    pub session_dir: Option<PathBuf>,
+    /// Whether `$TMUX` is set, so copies also go through tmux.
+    pub in_tmux: bool,
+    /// The bundled example wings, offered in the picker.
+    pub examples: Option<PathBuf>,
+}
+
+/// The whole workbench state.
+#[derive(Debug, Clone)]
+pub struct App {
+    /// Open wings; never empty.
+    pub docs: Vec<Doc>,
+    /// Index of the current wing.
+    pub current: usize,
+    /// The pinned reference.
+    pub reference: Option<Reference>,
+    /// What the keyboard is doing.
+    pub mode: Mode,
+    /// The status line.
+    pub status: Status,
+    /// Styles and glyphs.
+    pub theme: Theme,
+    /// Whether x_le and z are shown (on when any station uses them).
+    pub offsets: bool,
+    /// Launch settings.
+    pub settings: Settings,
+    /// Escape sequences to write to the terminal after the next frame (OSC 52).
+    pub outbox: Vec<String>,
+    /// Set when the user has asked to quit.
+    pub quit: bool,
+    /// Set by every action; the event loop saves the session after a short quiet time.
+    pub session_changed: bool,
+}
+
+impl App {
+    /// A workbench over `docs` (a starter wing is added when it is empty).
+    #[must_use]
+    pub fn new(mut docs: Vec<Doc>, theme: Theme, settings: Settings) -> Self {
+        if docs.is_empty() {
+            docs.push(Doc::new(super::starter::wing(), None, settings.options));
+        }
+        let offsets = docs.iter().any(|d| cells::offsets_used(&d.wing));
+        Self {
+            docs,
+            current: 0,
+            reference: None,
+            mode: Mode::Normal,
+            status: Status::default(),
+            theme,
+            offsets,
+            settings,
+            outbox: Vec::new(),
+            quit: false,
+            session_changed: false,
+        }
+    }
+
+    /// The current wing.
+    #[must_use]
+    pub fn doc(&self) -> &Doc {
+        &self.docs[self.current.min(self.docs.len() - 1)]
+    }
+
+    fn doc_mut(&mut self) -> &mut Doc {
+        let i = self.current.min(self.docs.len() - 1);
+        &mut self.docs[i]
+    }
+
+    /// The columns of a sheet of the current wing.
+    #[must_use]
+    pub fn columns(&self, sheet: Sheet) -> Vec<Field> {
+        cells::columns(&self.doc().wing, sheet, self.offsets)
+    }
+
+    /// The field under the cursor.
+    #[must_use]
+    pub fn field(&self) -> Option<Field> {
+        let c = self.doc().cursor;
+        self.columns(c.sheet).get(c.col).copied()
+    }
+
+    /// Sets the status line (cleaning the text).
+    pub fn say(&mut self, text: &str, error: bool) {
+        self.status = Status {
+            text: inert(text),
+            error,
+        };
+    }
+
+    /// Handles one key event: the key table first, then (when typing) the editor.
+    pub fn handle_key(&mut self, event: KeyEvent) {
+        if event.kind == KeyEventKind::Release {
+            return;
+        }
+        match keymap::lookup(self.mode.kind(), &event) {
+            Some(action) => self.update(action),
+            None => {
+                if let Mode::Edit(editor) = &mut self.mode {
+                    editor.input(event);
+                }
+            }
+        }
+    }
+
+    /// Applies one action.
+    pub fn update(&mut self, action: Action) {
+        self.session_changed = true;
+        match self.mode.kind() {
+            ModeKind::Normal => self.normal(action),
+            ModeKind::Edit => match action {
+                Action::Commit => self.commit_edit(),
+                Action::Cancel => self.mode = Mode::Normal,
+                _ => {}
+            },
+            ModeKind::Picker => self.picker(action),
+            ModeKind::Help => match (action, &mut self.mode) {
+                (Action::Cancel, _) => self.mode = Mode::Normal,
+                (Action::Move(Dir::Down), Mode::Help { scroll }) => {
+                    *scroll = scroll.saturating_add(1)
+                }
+                (Action::Move(Dir::Up), Mode::Help { scroll }) => {
+                    *scroll = scroll.saturating_sub(1)
+                }
+                _ => {}
+            },
+            ModeKind::Confirm => match action {
+                Action::QuitNow => self.quit = true,
+                Action::Cancel => self.mode = Mode::Normal,
+                _ => {}
+            },
+        }
+    }
+
+    fn normal(&mut self, action: Action) {
+        match action {
+            Action::Move(dir) => self.move_cursor(dir),
+            Action::Top => self.doc_mut().cursor.row = 0,
+            Action::Bottom => {
+                let d = self.doc();
+                let last = cells::rows(&d.wing, d.cursor.sheet).saturating_sub(1);
+                self.doc_mut().cursor.row = last;
+            }
+            Action::Pane(forward) => {
+                let c = &mut self.doc_mut().cursor;
+                c.sheet = c.sheet.cycle(forward);
+                c.row = 0;
+                c.col = 0;
+            }
+            Action::Edit => self.start_edit(),
+            Action::Nudge(steps) => self.nudge(steps),
+            Action::Insert => self.add_row(NewRow::Insert),
+            Action::Duplicate => self.add_row(NewRow::Duplicate),
+            Action::Delete => self.delete_row(),
+            Action::Undo => {
+                let options = self.settings.options;
+                let ok = self.doc_mut().undo(options);
+                self.after_history(ok, "undone", "nothing to undo");
+            }
+            Action::Redo => {
+                let options = self.settings.options;
+                let ok = self.doc_mut().redo(options);
+                self.after_history(ok, "redone", "nothing to redo");
+            }
+            Action::Wing(forward) => self.switch_wing(forward),
+            Action::Picker => self.mode = Mode::Picker(picker::build(self)),
+            Action::Open => self.prompt(Purpose::Open, ""),
+            Action::SaveAs => {
+                let start = self.doc().path.as_ref().map(|p| p.display().to_string());
+                self.prompt(Purpose::SaveAs, &start.unwrap_or_default());
+            }
+            Action::Notebook => {
+                let start = self.settings.notebook.display().to_string();
+                self.prompt(Purpose::Notebook, &start);
+            }
+            Action::Pin => self.pin(),
+            Action::Copy => super::actions::copy(self),
+            Action::Save => super::actions::save(self),
+            Action::Revert => super::actions::revert(self),
+            Action::ToggleTarget => self.toggle_target(),
+            Action::ToggleOffsets => {
+                self.offsets = !self.offsets;
+                self.clamp_cursor();
+            }
+            Action::Help => self.mode = Mode::Help { scroll: 0 },
+            Action::Quit => {
+                if self.docs.iter().any(Doc::unsaved) {
+                    self.mode = Mode::Confirm;
+                } else {
+                    self.quit = true;
+                }
+            }
+            Action::Commit | Action::Cancel | Action::QuitNow => {}
+        }
+    }
+
+    fn move_cursor(&mut self, dir: Dir) {
+        let c = &mut self.doc_mut().cursor;
+        match dir {
+            Dir::Up => c.row = c.row.saturating_sub(1),
+            Dir::Down => c.row += 1,
+            Dir::Left => c.col = c.col.saturating_sub(1),
+            Dir::Right => c.col += 1,
+        }
+        self.clamp_cursor();
+    }
+
+    /// Keeps the cursor inside the current sheet.
+    pub fn clamp_cursor(&mut self) {
+        let d = self.doc();
+        let rows = cells::rows(&d.wing, d.cursor.sheet);
+        let cols = self.columns(d.cursor.sheet).len();
+        let c = &mut self.doc_mut().cursor;
+        c.row = c.row.min(rows.saturating_sub(1));
+        c.col = c.col.min(cols.saturating_sub(1));
+    }
+
+    fn after_history(&mut self, ok: bool, done: &str, none: &str) {
+        self.clamp_cursor();
+        self.say(if ok { done } else { none }, !ok);
+    }
+
+    fn prompt(&mut self, purpose: Purpose, start: &str) {
+        self.mode = Mode::Edit(Box::new(Editor::new(purpose, start, self.theme.text)));
+    }
+
+    fn start_edit(&mut self) {
+        let Cursor { sheet, row, .. } = self.doc().cursor;
+        let Some(field) = self.field() else { return };
+        if cells::rows(&self.doc().wing, sheet) == 0 {
+            self.say("this pane is empty: press i to add a row", true);
+            return;
+        }
+        let text = cells::edit_text(&self.doc().wing, row, field);
+        let purpose = Purpose::Cell { sheet, row, field };
+        self.mode = Mode::Edit(Box::new(Editor::new(purpose, &text, self.theme.selected)));
+    }
+
+    fn commit_edit(&mut self) {
+        let Mode::Edit(editor) = &self.mode else {
+            return;
+        };
+        let (purpose, text) = (editor.purpose, editor.text());
+        let outcome = match purpose {
+            Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
+            Purpose::Open => super::actions::open(self, Path::new(text.trim())),
+            Purpose::SaveAs => super::actions::save_as(self, PathBuf::from(text.trim())),
+            Purpose::Notebook => {
+                self.settings.notebook = PathBuf::from(text.trim());
+                let msg = format!("notebook lines go to {}", self.settings.notebook.display());
+                self.say(&msg, false);
+                Ok(())
+            }
+        };
+        match outcome {
+            Ok(()) => {
+                if matches!(self.mode, Mode::Edit(_)) {
+                    self.mode = Mode::Normal;
+                }
+            }
+            Err(reason) => {
+                let reason = inert(&reason);
+                self.say(&reason, true);
+                if let Mode::Edit(editor) = &mut self.mode {
+                    editor.error = Some(reason);
+                }
+            }
+        }
+    }
+
+    fn commit_cell(&mut self, row: usize, field: Field, text: &str) -> Result<(), String> {
+        let mut wing = self.doc().wing.clone();
+        cells::set(&mut wing, row, field, text).map_err(|r| format!("{}: {r}", field.key()))?;
+        self.accept(wing)?;
+        let shown = cells::display(&self.doc().wing, row, field);
+        self.say(&format!("{} = {shown}", field.key()), false);
+        Ok(())
+    }
+
+    /// Takes an edited wing if it breaks no rule the current wing keeps; else the reason.
+    fn accept(&mut self, wing: Wing) -> Result<(), String> {
+        let before: Vec<String> = validate::problems(&self.doc().wing)
+            .iter()
+            .map(ToString::to_string)
+            .collect();
+        if let Some(p) = validate::problems(&wing)
+            .into_iter()
+            .find(|p| !before.contains(&p.to_string()))
+        {
+            return Err(p.to_string());
+        }
+        let options = self.settings.options;
+        self.doc_mut().change(wing, options);
+        self.clamp_cursor();
+        Ok(())
+    }
+
+    fn refuse_or(&mut self, result: Result<(), String>, done: &str) {
+        match result {
+            Ok(()) => self.say(done, false),
+            Err(reason) => self.say(&format!("not changed: {reason}"), true),
+        }
+    }
+
+    fn nudge(&mut self, steps: i32) {
+        let Cursor { row, .. } = self.doc().cursor;
+        let Some(field) = self.field() else { return };
+        let mut wing = self.doc().wing.clone();
+        if !cells::nudge(&mut wing, row, field, steps) {
+            self.say(
+                &format!("{} cannot be nudged; press Enter to edit", field.key()),
+                true,
+            );
+            return;
+        }
+        let result = self.accept(wing);
+        let shown = cells::display(&self.doc().wing, row, field);
+        self.refuse_or(result, &format!("{} = {shown}", field.key()));
+    }
+
+    fn add_row(&mut self, how: NewRow) {
+        let Cursor { sheet, row, .. } = self.doc().cursor;
+        let mut wing = self.doc().wing.clone();
+        let Some(new_row) = cells::add_row(&mut wing, sheet, row, how) else {
+            self.say(&format!("cannot add a row to {}", sheet.name()), true);
+            return;
+        };
+        let result = self.accept(wing);
+        if result.is_ok() {
+            self.doc_mut().cursor.row = new_row;
+        }
+        let done = match how {
+            NewRow::Insert => "row inserted",
+            NewRow::Duplicate => "row duplicated",
+        };
+        self.refuse_or(result, done);
+    }
+
+    fn delete_row(&mut self) {
+        let Cursor { sheet, row, .. } = self.doc().cursor;
+        let mut wing = self.doc().wing.clone();
+        if !cells::remove_row(&mut wing, sheet, row) {
+            self.say(&format!("nothing to delete in {}", sheet.name()), true);
+            return;
+        }
+        let result = self.accept(wing);
+        self.refuse_or(result, "row deleted (u brings it back)");
+    }
+
+    fn switch_wing(&mut self, forward: bool) {
+        let n = self.docs.len();
+        self.current = if forward {
+            (self.current + 1) % n
+        } else {
+            (self.current + n - 1) % n
+        };
+        self.clamp_cursor();
+        let name = self.doc().title().to_string();
+        self.say(&name, false);
+    }
+
+    fn pin(&mut self) {
+        let d = self.doc();
+        if self
+            .reference
+            .as_ref()
+            .is_some_and(|r| r.wing == d.wing && r.source == self.current)
+        {
+            self.reference = None;
+            self.say("reference unpinned", false);
+            return;
+        }
+        let msg = format!("pinned {} as the reference", d.title());
+        self.reference = Some(Reference {
+            wing: d.wing.clone(),
+            solved: d.solved.clone(),
+            source: self.current,
+        });
+        self.say(&msg, false);
+    }
+
+    fn toggle_target(&mut self) {
+        let d = self.doc();
+        let mut wing = d.wing.clone();
+        match (wing.condition.target_cl, &d.solved) {
+            (Some(_), Ok(s)) => {
+                wing.condition.alpha_deg = s.coefficients.alpha_deg;
+                wing.condition.target_cl = None;
+            }
+            (Some(_), Err(_)) => wing.condition.target_cl = None,
+            (None, Ok(s)) => wing.condition.target_cl = Some(s.coefficients.cl),
+            (None, Err(_)) => wing.condition.target_cl = Some(0.0),
+        }
+        let result = self.accept(wing);
+        self.refuse_or(result, "condition switched");
+    }
+
+    fn picker(&mut self, action: Action) {
+        let Mode::Picker(p) = &mut self.mode else {
+            return;
+        };
+        match action {
+            Action::Move(Dir::Up) => p.selected = p.selected.saturating_sub(1),
+            Action::Move(Dir::Down) => {
+                p.selected = (p.selected + 1).min(p.entries.len().saturating_sub(1));
+            }
+            Action::Commit => {
+                let chosen = p.entries.get(p.selected).map(|e| e.target.clone());
+                self.mode = Mode::Normal;
+                if let Some(target) = chosen {
+                    picker::choose(self, target);
+                }
+            }
+            Action::Cancel => self.mode = Mode::Normal,
+            _ => {}
+        }
+    }
+
+    /// Adds an open wing (or switches to it if that file is already open) and makes it
+    /// current.
+    pub fn add_doc(&mut self, doc: Doc) {
+        let same = doc.path.as_ref().and_then(|p| {
+            self.docs
+                .iter()
+                .position(|d| d.path.as_ref().is_some_and(|q| same_file(p, q)))
+        });
+        self.current = match same {
+            Some(i) => i,
+            None => {
+                self.offsets |= cells::offsets_used(&doc.wing);
+                self.docs.push(doc);
+                self.docs.len() - 1
+            }
+        };
+    }
+
+    /// Mutable access to the current wing for file actions.
+    pub(super) fn current_doc_mut(&mut self) -> &mut Doc {
+        self.doc_mut()
+    }
+}
+
+/// Whether two paths name the same file (by canonical path when both exist).
+#[must_use]
+pub fn same_file(a: &Path, b: &Path) -> bool {
+    match (a.canonicalize(), b.canonicalize()) {
+        (Ok(x), Ok(y)) => x == y,
+        _ => a == b,
+    }
+}

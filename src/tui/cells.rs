@@ -1,0 +1,589 @@
+//! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
+//! reads, parses and nudges. The app and the views share this one description.
+
+use crate::wing::{Airfoil, Control, ControlKind, Station, Wing};
+
+/// A pane of cells.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+pub enum Sheet {
+    /// One row per station.
+    Stations,
+    /// One row per airfoil.
+    Airfoils,
+    /// One row per control surface.
+    Controls,
+    /// The condition bar (one row).
+    Condition,
+}
+
+impl Sheet {
+    /// Order of the focus cycle.
+    pub const ALL: [Self; 4] = [
+        Self::Stations,
+        Self::Airfoils,
+        Self::Controls,
+        Self::Condition,
+    ];
+
+    /// The name used on screen and in sessions.
+    #[must_use]
+    pub const fn name(self) -> &'static str {
+        match self {
+            Self::Stations => "stations",
+            Self::Airfoils => "airfoils",
+            Self::Controls => "controls",
+            Self::Condition => "condition",
+        }
+    }
+
+    /// The sheet with this name (stations for anything unknown).
+    #[must_use]
+    pub fn from_name(name: &str) -> Self {
+        Self::ALL
+            .into_iter()
+            .find(|s| s.name() == name)
+            .unwrap_or(Self::Stations)
+    }
+
+    /// The next (`forward`) or previous sheet in the focus cycle.
+    #[must_use]
+    pub fn cycle(self, forward: bool) -> Self {
+        let i = Self::ALL.iter().position(|s| *s == self).unwrap_or(0);
+        let n = Self::ALL.len();
+        Self::ALL[if forward {
+            (i + 1) % n
+        } else {
+            (i + n - 1) % n
+        }]
+    }
+}
+
+/// One editable quantity.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+#[allow(
+    missing_docs,
+    reason = "the variants are the wing-file keys named in `key`"
+)]
+pub enum Field {
+    Y,
+    Chord,
+    Twist,
+    Airfoil,
+    XLe,
+    Z,
+    AirfoilKey,
+    LiftSlope,
+    AlphaZeroLift,
+    ClMax,
+    Cd0,
+    Cd1,
+    Cd2,
+    Name,
+    Kind,
+    YInner,
+    YOuter,
+    ChordFraction,
+    Deflection,
+    Effectiveness,
+    Alpha,
+    TargetCl,
+    Speed,
+    Altitude,
+}
+
+impl Field {
+    /// The wing-file key, as used by the validation rules.
+    #[must_use]
+    pub const fn key(self) -> &'static str {
+        match self {
+            Self::Y => "y",
+            Self::Chord => "chord",
+            Self::Twist => "twist",
+            Self::Airfoil => "airfoil",
+            Self::XLe => "x_le",
+            Self::Z => "z",
+            Self::AirfoilKey => "key",
+            Self::LiftSlope => "lift_slope",
+            Self::AlphaZeroLift => "alpha_zero_lift",
+            Self::ClMax => "cl_max",
+            Self::Cd0 => "cd0",
+            Self::Cd1 => "cd1",
+            Self::Cd2 => "cd2",
+            Self::Name => "name",
+            Self::Kind => "kind",
+            Self::YInner => "y_inner",
+            Self::YOuter => "y_outer",
+            Self::ChordFraction => "chord_fraction",
+            Self::Deflection => "deflection",
+            Self::Effectiveness => "effectiveness",
+            Self::Alpha => "alpha",
+            Self::TargetCl => "cl",
+            Self::Speed => "speed",
+            Self::Altitude => "altitude",
+        }
+    }
+
+    /// Column heading with unit.
+    #[must_use]
+    pub const fn title(self) -> &'static str {
+        match self {
+            Self::Y => "y m",
+            Self::Chord => "chord m",
+            Self::Twist => "twist",
+            Self::Airfoil | Self::AirfoilKey => "airfoil",
+            Self::XLe => "x_le m",
+            Self::Z => "z m",
+            Self::LiftSlope => "a0/rad",
+            Self::AlphaZeroLift => "a_L0",
+            Self::ClMax => "cl_max",
+            Self::Cd0 => "cd0",
+            Self::Cd1 => "cd1",
+            Self::Cd2 => "cd2",
+            Self::Name => "name",
+            Self::Kind => "kind",
+            Self::YInner => "y_in m",
+            Self::YOuter => "y_out m",
+            Self::ChordFraction => "cf/c",
+            Self::Deflection => "defl",
+            Self::Effectiveness => "eff",
+            Self::Alpha => "alpha deg",
+            Self::TargetCl => "target CL",
+            Self::Speed => "speed m/s",
+            Self::Altitude => "altitude m",
+        }
+    }
+
+    /// Display width of the column.
+    #[must_use]
+    pub const fn width(self) -> u16 {
+        match self {
+            Self::Airfoil | Self::AirfoilKey | Self::Name => 9,
+            Self::Kind => 7,
+            Self::Twist | Self::AlphaZeroLift | Self::ChordFraction | Self::Deflection => 6,
+            _ => 7,
+        }
+    }
+
+    /// The small nudge step; the large step is ten of these.
+    #[must_use]
+    pub const fn step(self) -> f64 {
+        match self {
+            Self::Y | Self::Chord | Self::XLe | Self::Z | Self::YInner | Self::YOuter => 0.01,
+            Self::Twist | Self::AlphaZeroLift | Self::Alpha => 0.1,
+            Self::Deflection => 0.5,
+            Self::LiftSlope => 0.05,
+            Self::ClMax | Self::ChordFraction | Self::Effectiveness | Self::TargetCl => 0.01,
+            Self::Cd0 | Self::Cd1 | Self::Cd2 => 0.0005,
+            Self::Speed => 1.0,
+            Self::Altitude => 100.0,
+            Self::Airfoil | Self::AirfoilKey | Self::Name | Self::Kind => 1.0,
+        }
+    }
+
+    /// Fields holding text rather than a number.
+    #[must_use]
+    pub const fn is_text(self) -> bool {
+        matches!(
+            self,
+            Self::Airfoil | Self::AirfoilKey | Self::Name | Self::Kind
+        )
+    }
+}
+
+/// The columns of a sheet. `offsets` adds x_le and z to the stations; the condition bar
+/// shows target CL instead of alpha when the wing has one.
+#[must_use]
+pub fn columns(wing: &Wing, sheet: Sheet, offsets: bool) -> Vec<Field> {
+    match sheet {
+        Sheet::Stations if offsets => vec![
+            Field::Y,
+            Field::Chord,
+            Field::Twist,
+            Field::Airfoil,
+            Field::XLe,
+            Field::Z,
+        ],
+        Sheet::Stations => vec![Field::Y, Field::Chord, Field::Twist, Field::Airfoil],
+        Sheet::Airfoils => vec![
+            Field::AirfoilKey,
+            Field::LiftSlope,
+            Field::AlphaZeroLift,
+            Field::ClMax,
+            Field::Cd0,
+            Field::Cd1,
+            Field::Cd2,
+        ],
+        Sheet::Controls => vec![
+            Field::Name,
+            Field::Kind,
+            Field::YInner,
+            Field::YOuter,
+            Field::ChordFraction,
+            Field::Deflection,
+            Field::Effectiveness,
+        ],
+        Sheet::Condition => {
+            let first = if wing.condition.target_cl.is_some() {
+                Field::TargetCl
+            } else {
+                Field::Alpha
+            };
+            vec![first, Field::Speed, Field::Altitude]
+        }
+    }
+}
+
+/// True when any station has a leading-edge offset or height, so those columns matter.
+#[must_use]
+pub fn offsets_used(wing: &Wing) -> bool {
+    wing.stations.iter().any(|s| s.x_le != 0.0 || s.z != 0.0)
+}
+
+/// Number of rows in a sheet.
+#[must_use]
+pub fn rows(wing: &Wing, sheet: Sheet) -> usize {
+    match sheet {
+        Sheet::Stations => wing.stations.len(),
+        Sheet::Airfoils => wing.airfoils.len(),
+        Sheet::Controls => wing.controls.len(),
+        Sheet::Condition => 1,
+    }
+}
+
+/// The airfoil key in row `row` of the airfoil sheet.
+#[must_use]
+pub fn airfoil_key(wing: &Wing, row: usize) -> Option<&str> {
+    wing.airfoils.keys().nth(row).map(String::as_str)
+}
+
+fn number(wing: &Wing, row: usize, field: Field) -> Option<f64> {
+    let s = wing.stations.get(row);
+    let a = airfoil_key(wing, row).and_then(|k| wing.airfoils.get(k));
+    let c = wing.controls.get(row);
+    let cond = &wing.condition;
+    match field {
+        Field::Y => s.map(|s| s.y),
+        Field::Chord => s.map(|s| s.chord),
+        Field::Twist => s.map(|s| s.twist_deg),
+        Field::XLe => s.map(|s| s.x_le),
+        Field::Z => s.map(|s| s.z),
+        Field::LiftSlope => a.map(|a| a.lift_slope),
+        Field::AlphaZeroLift => a.map(|a| a.alpha_zero_lift_deg),
+        Field::ClMax => a.map(|a| a.cl_max),
+        Field::Cd0 => a.map(|a| a.cd0),
+        Field::Cd1 => a.map(|a| a.cd1),
+        Field::Cd2 => a.map(|a| a.cd2),
+        Field::YInner => c.map(|c| c.y_inner),
+        Field::YOuter => c.map(|c| c.y_outer),
+        Field::ChordFraction => c.map(|c| c.chord_fraction),
+        Field::Deflection => c.map(|c| c.deflection_deg),
+        Field::Effectiveness => c.and_then(|c| c.effectiveness),
+        Field::Alpha => Some(cond.alpha_deg),
+        Field::TargetCl => cond.target_cl,
+        Field::Speed => Some(cond.speed),
+        Field::Altitude => Some(cond.altitude),
+        Field::Airfoil | Field::AirfoilKey | Field::Name | Field::Kind => None,
+    }
+}
+
+fn text_value(wing: &Wing, row: usize, field: Field) -> Option<String> {
+    match field {
+        Field::Airfoil => wing.stations.get(row).map(|s| s.airfoil.clone()),
+        Field::AirfoilKey => airfoil_key(wing, row).map(str::to_string),
+        Field::Name => wing.controls.get(row).map(|c| c.name.clone()),
+        Field::Kind => wing.controls.get(row).map(|c| c.kind.as_str().to_string()),
+        _ => None,
+    }
+}
+
+/// A cell as shown in the table (rounded; raw text, to be cleaned before drawing).
+#[must_use]
+pub fn display(wing: &Wing, row: usize, field: Field) -> String {
+    if field.is_text() {
+        return text_value(wing, row, field).unwrap_or_default();
+    }
+    let Some(v) = number(wing, row, field) else {
+        return "-".into();
+    };
+    match field {
+        Field::Cd0 | Field::Cd1 | Field::Cd2 => format!("{v:.4}"),
+        Field::Speed | Field::Altitude => format!("{v:.1}"),
+        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => format!("{v:.2}"),
+        _ => format!("{v:.3}"),
+    }
+}
+
+/// A cell's full-precision text, to start the editor with.
+#[must_use]
+pub fn edit_text(wing: &Wing, row: usize, field: Field) -> String {
+    if field.is_text() {
+        return text_value(wing, row, field).unwrap_or_default();
+    }
+    number(wing, row, field).map_or_else(String::new, |v| format!("{v}"))
+}
+
+fn parse_number(input: &str) -> Result<f64, String> {
+    let t = input.trim();
+    t.parse::<f64>()
+        .ok()
+        .filter(|v| v.is_finite())
+        .ok_or_else(|| format!("`{t}` is not a number"))
+}
+
+/// Sets a cell from typed text. Only parsing is checked here; the wing rules are checked by
+/// the caller on the edited copy.
+///
+/// # Errors
+/// A short reason when the text is not a value for this field.
+pub fn set(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
+    if field.is_text() {
+        return set_text(wing, row, field, input.trim());
+    }
+    if field == Field::Effectiveness && input.trim().is_empty() {
+        if let Some(c) = wing.controls.get_mut(row) {
+            c.effectiveness = None;
+        }
+        return Ok(());
+    }
+    let v = parse_number(input)?;
+    set_number(wing, row, field, v);
+    Ok(())
+}
+
+fn set_number(wing: &mut Wing, row: usize, field: Field, v: f64) {
+    let key = airfoil_key(wing, row).map(str::to_string);
+    if let Some(s) = wing.stations.get_mut(row) {
+        match field {
+            Field::Y => s.y = v,
+            Field::Chord => s.chord = v,
+            Field::Twist => s.twist_deg = v,
+            Field::XLe => s.x_le = v,
+            Field::Z => s.z = v,
+            _ => {}
+        }
+    }
+    if let Some(a) = key.and_then(|k| wing.airfoils.get_mut(&k)) {
+        match field {
+            Field::LiftSlope => a.lift_slope = v,
+            Field::AlphaZeroLift => a.alpha_zero_lift_deg = v,
+            Field::ClMax => a.cl_max = v,
+            Field::Cd0 => a.cd0 = v,
+            Field::Cd1 => a.cd1 = v,
+            Field::Cd2 => a.cd2 = v,
+            _ => {}
+        }
+    }
+    if let Some(c) = wing.controls.get_mut(row) {
+        match field {
+            Field::YInner => c.y_inner = v,
+            Field::YOuter => c.y_outer = v,
+            Field::ChordFraction => c.chord_fraction = v,
+            Field::Deflection => c.deflection_deg = v,
+            Field::Effectiveness => c.effectiveness = Some(v),
+            _ => {}
+        }
+    }
+    let cond = &mut wing.condition;
+    match field {
+        Field::Alpha => cond.alpha_deg = v,
+        Field::TargetCl => cond.target_cl = Some(v),
+        Field::Speed => cond.speed = v,
+        Field::Altitude => cond.altitude = v,
+        _ => {}
+    }
+}
+
+fn set_text(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
+    if input.is_empty() && field != Field::Name {
+        return Err("must not be empty".into());
+    }
+    match field {
+        Field::Airfoil => {
+            if let Some(s) = wing.stations.get_mut(row) {
+                s.airfoil = input.to_string();
+            }
+        }
+        Field::AirfoilKey => rename_airfoil(wing, row, input)?,
+        Field::Name => {
+            if let Some(c) = wing.controls.get_mut(row) {
+                c.name = input.to_string();
+            }
+        }
+        Field::Kind => {
+            let kind = match input {
+                "flap" => ControlKind::Flap,
+                "aileron" => ControlKind::Aileron,
+                other => return Err(format!("`{other}` is not `flap` or `aileron`")),
+            };
+            if let Some(c) = wing.controls.get_mut(row) {
+                c.kind = kind;
+            }
+        }
+        _ => {}
+    }
+    Ok(())
+}
+
+/// Renames an airfoil and every station that uses it.
+fn rename_airfoil(wing: &mut Wing, row: usize, new: &str) -> Result<(), String> {
+    let Some(old) = airfoil_key(wing, row).map(str::to_string) else {
+        return Ok(());
+    };
+    if old == new {
+        return Ok(());
+    }
+    if wing.airfoils.contains_key(new) {
+        return Err(format!("an airfoil `{new}` already exists"));
+    }
+    if let Some(a) = wing.airfoils.remove(&old) {
+        wing.airfoils.insert(new.to_string(), a);
+    }
+    for s in wing.stations.iter_mut().filter(|s| s.airfoil == old) {
+        s.airfoil = new.to_string();
+    }
+    Ok(())
+}
+
+/// Moves a value by `steps` small steps (numbers), or to the next/previous choice (airfoil,
+/// kind). Returns false when the cell cannot be nudged.
+pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
+    match field {
+        Field::Airfoil => cycle_airfoil(wing, row, steps),
+        Field::Kind => {
+            let Some(c) = wing.controls.get_mut(row) else {
+                return false;
+            };
+            c.kind = match c.kind {
+                ControlKind::Flap => ControlKind::Aileron,
+                ControlKind::Aileron => ControlKind::Flap,
+            };
+            true
+        }
+        Field::AirfoilKey | Field::Name => false,
+        _ => {
+            // An unset effectiveness starts from the thin-airfoil value the solver uses.
+            let base = number(wing, row, field)
+                .or_else(|| {
+                    let c = wing.controls.get(row)?;
+                    (field == Field::Effectiveness)
+                        .then(|| crate::solver::controls::effectiveness(c))
+                })
+                .unwrap_or(0.0);
+            let step = field.step();
+            // Round to the step grid so repeated nudges give tidy values.
+            let v = ((base + f64::from(steps) * step) / step).round() * step;
+            set_number(wing, row, field, v);
+            true
+        }
+    }
+}
+
+fn cycle_airfoil(wing: &mut Wing, row: usize, steps: i32) -> bool {
+    let keys: Vec<String> = wing.airfoils.keys().cloned().collect();
+    let Some(s) = wing.stations.get_mut(row) else {
+        return false;
+    };
+    if keys.is_empty() {
+        return false;
+    }
+    let n = i64::try_from(keys.len()).unwrap_or(1);
+    let i = keys.iter().position(|k| *k == s.airfoil).unwrap_or(0);
+    let next = (i64::try_from(i).unwrap_or(0) + i64::from(steps.signum())).rem_euclid(n);
+    s.airfoil = keys[usize::try_from(next).unwrap_or(0)].clone();
+    true
+}
+
+/// How a new row is made.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum NewRow {
+    /// Interpolated halfway between the selected station and the next one.
+    Insert,
+    /// A copy of the selected row (for a station: its values, placed halfway to a neighbour).
+    Duplicate,
+}
+
+/// Adds a row after `row`; returns the new row's index, or `None` when the sheet has no rows
+/// to add to.
+pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option<usize> {
+    match sheet {
+        Sheet::Stations => add_station(wing, row, how),
+        Sheet::Airfoils => {
+            let key = airfoil_key(wing, row)?.to_string();
+            let airfoil: Airfoil = wing.airfoils.get(&key).copied().unwrap_or_default();
+            let new_key = (2..)
+                .map(|n| format!("{key}-{n}"))
+                .find(|k| !wing.airfoils.contains_key(k))?;
+            wing.airfoils.insert(new_key.clone(), airfoil);
+            wing.airfoils.keys().position(|k| *k == new_key)
+        }
+        Sheet::Controls => {
+            let control = match (how, wing.controls.get(row)) {
+                (NewRow::Duplicate, Some(c)) => c.clone(),
+                _ => default_control(wing),
+            };
+            let at = (row + 1).min(wing.controls.len());
+            wing.controls.insert(at, control);
+            Some(at)
+        }
+        Sheet::Condition => None,
+    }
+}
+
+fn default_control(wing: &Wing) -> Control {
+    let tip = wing.span_ends().1.max(0.0);
+    Control {
+        name: format!("control {}", wing.controls.len() + 1),
+        kind: ControlKind::Aileron,
+        y_inner: 0.6 * tip,
+        y_outer: 0.95 * tip,
+        chord_fraction: 0.25,
+        deflection_deg: 0.0,
+        effectiveness: None,
+    }
+}
+
+fn add_station(wing: &mut Wing, row: usize, how: NewRow) -> Option<usize> {
+    let n = wing.stations.len();
+    if n < 2 {
+        return None;
+    }
+    // Between `row` and the next; the tip station pairs with the one inboard of it.
+    let a = row.min(n - 2);
+    let (p, q) = (&wing.stations[a], &wing.stations[a + 1]);
+    let mid = |u: f64, v: f64| 0.5 * (u + v);
+    let station = match how {
+        NewRow::Insert => Station {
+            y: mid(p.y, q.y),
+            chord: mid(p.chord, q.chord),
+            twist_deg: mid(p.twist_deg, q.twist_deg),
+            airfoil: p.airfoil.clone(),
+            x_le: mid(p.x_le, q.x_le),
+            z: mid(p.z, q.z),
+        },
+        NewRow::Duplicate => Station {
+            y: mid(p.y, q.y),
+            ..wing.stations[row.min(n - 1)].clone()
+        },
+    };
+    wing.stations.insert(a + 1, station);
+    Some(a + 1)
+}
+
+/// Removes a row; returns false when there is nothing to remove.
+pub fn remove_row(wing: &mut Wing, sheet: Sheet, row: usize) -> bool {
+    match sheet {
+        Sheet::Stations if row < wing.stations.len() => {
+            wing.stations.remove(row);
+            true
+        }
+        Sheet::Airfoils => match airfoil_key(wing, row).map(str::to_string) {
+            Some(key) => wing.airfoils.remove(&key).is_some(),
+            None => false,
+        },
+        Sheet::Controls if row < wing.controls.len() => {
+            wing.controls.remove(row);
+            true
+        }
+        _ => false,
+    }
+}

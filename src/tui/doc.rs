@@ -1,0 +1,126 @@
+//! One open wing: its model, file, unsaved state, undo history, cursor and latest solution.
+
+use std::path::PathBuf;
+
+use super::cells::Sheet;
+use crate::solver::{self, Options, Solution};
+use crate::wing::Wing;
+
+/// Most undo steps kept per wing.
+const UNDO_LIMIT: usize = 500;
+
+/// Where the cursor is in a wing's panes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub struct Cursor {
+    /// The focused pane.
+    pub sheet: Sheet,
+    /// Row in that pane.
+    pub row: usize,
+    /// Column in that pane.
+    pub col: usize,
+}
+
+impl Default for Cursor {
+    fn default() -> Self {
+        Self {
+            sheet: Sheet::Stations,
+            row: 0,
+            col: 0,
+        }
+    }
+}
+
+/// An open wing.
+#[derive(Debug, Clone)]
+pub struct Doc {
+    /// The wing as edited.
+    pub wing: Wing,
+    /// Its file, if it has one.
+    pub path: Option<PathBuf>,
+    /// The wing as last read or saved (`None` for a wing never saved).
+    pub saved: Option<Wing>,
+    /// Earlier states, newest last.
+    undo: Vec<Wing>,
+    /// Undone states, newest last.
+    redo: Vec<Wing>,
+    /// Cursor.
+    pub cursor: Cursor,
+    /// The solution of `wing`, or why there is none (already cleaned for display).
+    pub solved: Result<Solution, String>,
+}
+
+/// Solves a wing at its own condition; the error is one line for the status area.
+pub fn solve(wing: &Wing, options: Options) -> Result<Solution, String> {
+    solver::prepare(wing, options)
+        .and_then(|p| p.solve(&wing.condition))
+        .map_err(|e| crate::text::inert(&e.to_string()))
+}
+
+impl Doc {
+    /// A wing just read from `path` (or never saved, with `None`).
+    #[must_use]
+    pub fn new(wing: Wing, path: Option<PathBuf>, options: Options) -> Self {
+        let saved = path.as_ref().map(|_| wing.clone());
+        let solved = solve(&wing, options);
+        Self {
+            wing,
+            path,
+            saved,
+            undo: Vec::new(),
+            redo: Vec::new(),
+            cursor: Cursor::default(),
+            solved,
+        }
+    }
+
+    /// True when the wing differs from its file (or has no file).
+    #[must_use]
+    pub fn unsaved(&self) -> bool {
+        self.saved.as_ref() != Some(&self.wing)
+    }
+
+    /// The name to show (raw; clean before drawing).
+    #[must_use]
+    pub fn title(&self) -> &str {
+        &self.wing.name
+    }
+
+    /// Replaces the wing with an edited one, keeping the old one for undo, and re-solves.
+    pub fn change(&mut self, wing: Wing, options: Options) {
+        if wing == self.wing {
+            return;
+        }
+        let old = std::mem::replace(&mut self.wing, wing);
+        self.undo.push(old);
+        if self.undo.len() > UNDO_LIMIT {
+            self.undo.remove(0);
+        }
+        self.redo.clear();
+        self.resolve(options);
+    }
+
+    /// Steps back one change; false when there is none.
+    pub fn undo(&mut self, options: Options) -> bool {
+        let Some(previous) = self.undo.pop() else {
+            return false;
+        };
+        self.redo.push(std::mem::replace(&mut self.wing, previous));
+        self.resolve(options);
+        true
+    }
+
+    /// Steps forward one undone change; false when there is none.
+    pub fn redo(&mut self, options: Options) -> bool {
+        let Some(next) = self.redo.pop() else {
+            return false;
+        };
+        self.undo.push(std::mem::replace(&mut self.wing, next));
+        self.resolve(options);
+        true
+    }
+
+    /// Re-solves the current wing.
+    pub fn resolve(&mut self, options: Options) {
+        self.solved = solve(&self.wing, options);
+    }
+}

@@ -1,0 +1,80 @@
+//! The single-line editor used for cells and for the path prompts.
+
+use crossterm::event::KeyEvent;
+use ratatui::style::Style;
+use tui_textarea::{CursorMove, TextArea};
+
+use super::cells::{Field, Sheet};
+
+/// What the typed text is for.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Purpose {
+    /// A cell of the current wing.
+    Cell {
+        /// The pane.
+        sheet: Sheet,
+        /// The row.
+        row: usize,
+        /// The quantity.
+        field: Field,
+    },
+    /// A wing file to open.
+    Open,
+    /// Where to save the current wing.
+    SaveAs,
+    /// Where the notebook lines go.
+    Notebook,
+}
+
+impl Purpose {
+    /// The prompt shown before a path prompt.
+    #[must_use]
+    pub const fn prompt(self) -> &'static str {
+        match self {
+            Self::Cell { .. } => "",
+            Self::Open => "open wing file: ",
+            Self::SaveAs => "save as: ",
+            Self::Notebook => "notebook file: ",
+        }
+    }
+}
+
+/// A tui-textarea kept to one line, with the reason the last commit was refused.
+#[derive(Debug, Clone)]
+pub struct Editor {
+    /// What the text is for.
+    pub purpose: Purpose,
+    /// The text area.
+    pub area: TextArea<'static>,
+    /// Why the last attempt to commit was refused; shown in the cell and the status line.
+    pub error: Option<String>,
+}
+
+impl Editor {
+    /// An editor holding `text`, cursor at the end.
+    #[must_use]
+    pub fn new(purpose: Purpose, text: &str, style: Style) -> Self {
+        let mut area = TextArea::new(vec![text.to_string()]);
+        area.set_cursor_line_style(Style::new());
+        area.set_style(style);
+        area.move_cursor(CursorMove::End);
+        Self {
+            purpose,
+            area,
+            error: None,
+        }
+    }
+
+    /// The text typed so far (one line: Enter never reaches the text area).
+    #[must_use]
+    pub fn text(&self) -> String {
+        self.area.lines().join("")
+    }
+
+    /// Passes a key to the text area; a change clears the last error.
+    pub fn input(&mut self, key: KeyEvent) {
+        if self.area.input(key) {
+            self.error = None;
+        }
+    }
+}

@@ -1,0 +1,204 @@
+//! The terminal workbench: a station editor with live spanwise plots, a results strip and
+//! sessions, over the solver core.
+//!
+//! Layout of the module: [`app`] holds the state and `update(Action)`; [`keymap`] is the one
+//! key table; [`view`] draws `&App`; [`session`](crate::session) keeps the work between runs.
+
+pub mod actions;
+pub mod app;
+pub mod cells;
+pub mod clipboard;
+pub mod doc;
+pub mod editor;
+pub mod keymap;
+pub mod persist;
+pub mod picker;
+pub mod starter;
+pub mod terminal;
+pub mod theme;
+pub mod view;
+
+use std::io;
+use std::path::{Path, PathBuf};
+use std::process::ExitCode;
+use std::time::{Duration, Instant};
+
+use crossterm::event::{self, Event};
+
+use crate::session;
+use crate::solver::Options;
+use app::{App, Settings};
+
+/// Environment variable naming the notebook file.
+pub const NOTEBOOK_ENV: &str = "GAMMALINE_NOTEBOOK";
+/// Quiet time after a change before the session is written; bounds what a killed process
+/// can lose.
+pub const AUTOSAVE_AFTER: Duration = Duration::from_millis(500);
+
+/// How the workbench is started.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
+pub struct LaunchOptions {
+    /// Wing files to open. Empty: the last session, or the bundled examples (`./wings` or the
+    /// source tree's `wings`) when there is none. Unsaved wings of the last session are kept
+    /// open beside the files.
+    pub files: Vec<PathBuf>,
+    /// The session folder (`--session`); else `GAMMALINE_SESSION_DIR`, else the user's
+    /// configuration folder.
+    pub session_dir: Option<PathBuf>,
+    /// ASCII borders and sparklines (`--ascii`); also chosen when the locale is not UTF-8.
+    pub ascii: bool,
+    /// The notebook file for copied lines; else `GAMMALINE_NOTEBOOK`, else the session's
+    /// choice, else `notebook.txt` in the session folder when that was given explicitly,
+    /// else in the user data folder.
+    pub notebook: Option<PathBuf>,
+}
+
+/// Runs the workbench until the user quits. The terminal is restored on every exit.
+#[must_use]
+pub fn run(options: LaunchOptions) -> ExitCode {
+    let mut app = build_app(&options);
+    let outcome = std::panic::catch_unwind(std::panic::AssertUnwindSafe(|| {
+        let mut guard = terminal::Guard::new()?;
+        event_loop(&mut guard, &mut app)
+    }));
+    match outcome {
+        Ok(Ok(())) => ExitCode::SUCCESS,
+        Ok(Err(e)) => {
+            eprintln!("gammaline: the workbench stopped: {e}");
+            ExitCode::FAILURE
+        }
+        Err(_) => {
+            // The terminal is already restored (guard drop and ratatui's hook); keep the work.
+            persist::save_session(&mut app);
+            eprintln!("gammaline: internal error in the workbench; the session was saved");
+            ExitCode::FAILURE
+        }
+    }
+}
+
+/// Builds the workbench state for these options (no terminal involved; tests use it).
+#[must_use]
+pub fn build_app(options: &LaunchOptions) -> App {
+    let solver = Options::default();
+    let explicit_dir = options.session_dir.is_some()
+        || std::env::var_os(session::DIR_ENV).is_some_and(|v| !v.is_empty());
+    let dir = session::dir(options.session_dir.as_deref());
+    let mut notices = Vec::new();
+    let mut start = persist::Start::default();
+    if let Some(dir) = &dir {
+        let loaded = session::load(dir);
+        notices.extend(loaded.notice);
+        if let Some(s) = loaded.session {
+            start = persist::restore(&s, dir, solver);
+        }
+    }
+    let examples = persist::examples_dir();
+    if !options.files.is_empty() {
+        start.docs.retain(doc::Doc::unsaved);
+        let opened = persist::open_files(&options.files, solver);
+        notices.extend(opened.notices);
+        if !opened.docs.is_empty() {
+            start.current = start.docs.len();
+        }
+        start.docs.extend(opened.docs);
+    } else if start.docs.is_empty() {
+        if let Some(ex) = &examples {
+            let files = persist::example_files(ex);
+            let opened = persist::open_files(&files, solver);
+            notices.extend(opened.notices);
+            start.docs = opened.docs;
+            start.current = 0;
+        }
+    }
+    notices.extend(std::mem::take(&mut start.notices));
+    let notebook = notebook_path(options, start.notebook.take(), dir.as_deref(), explicit_dir);
+    let settings = Settings {
+        options: solver,
+        notebook,
+        session_dir: dir,
+        in_tmux: std::env::var_os("TMUX").is_some_and(|v| !v.is_empty()),
+        examples,
+    };
+    let mut app = App::new(start.docs, theme::Theme::from_env(options.ascii), settings);
+    app.current = start.current.min(app.docs.len() - 1);
+    app.reference = start.reference;
+    app.clamp_cursor();
+    match notices.first() {
+        Some(first) => {
+            let more = if notices.len() > 1 {
+                format!(" (+{} more)", notices.len() - 1)
+            } else {
+                String::new()
+            };
+            app.say(&format!("{first}{more}"), true);
+        }
+        None => app.say("press ? for the keys", false),
+    }
+    app
+}
+
+fn notebook_path(
+    options: &LaunchOptions,
+    from_session: Option<PathBuf>,
+    dir: Option<&Path>,
+    explicit_dir: bool,
+) -> PathBuf {
+    if let Some(p) = &options.notebook {
+        return p.clone();
+    }
+    if let Some(p) = std::env::var_os(NOTEBOOK_ENV).filter(|v| !v.is_empty()) {
+        return PathBuf::from(p);
+    }
+    if let Some(p) = from_session {
+        return p;
+    }
+    // A session folder given on purpose (tests, separate projects) keeps its notebook too.
+    if let (true, Some(dir)) = (explicit_dir, dir) {
+        return dir.join("notebook.txt");
+    }
+    directories::ProjectDirs::from("", "", "gammaline").map_or_else(
+        || PathBuf::from("gammaline-notebook.txt"),
+        |d| d.data_dir().join("notebook.txt"),
+    )
+}
+
+fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
+    let mut first_change: Option<Instant> = None;
+    loop {
+        guard
+            .terminal
+            .draw(|frame| view::render(app, frame.area(), frame.buffer_mut()))?;
+        for sequence in std::mem::take(&mut app.outbox) {
+            guard.write_raw(&sequence)?;
+        }
+        if app.quit {
+            break;
+        }
+        let wait = first_change.map_or(Duration::from_secs(3600), |t| {
+            AUTOSAVE_AFTER.saturating_sub(t.elapsed())
+        });
+        if event::poll(wait)? {
+            handle(app, event::read()?);
+            // Take every key already queued before drawing again, so fast typing or key
+            // repeat never lags behind the screen.
+            while !app.quit && event::poll(Duration::ZERO)? {
+                handle(app, event::read()?);
+            }
+        }
+        if app.session_changed && first_change.is_none() {
+            first_change = Some(Instant::now());
+        }
+        if first_change.is_some_and(|t| t.elapsed() >= AUTOSAVE_AFTER) {
+            persist::save_session(app);
+            first_change = None;
+        }
+    }
+    persist::save_session(app);
+    Ok(())
+}
+
+fn handle(app: &mut App, event: Event) {
+    if let Event::Key(key) = event {
+        app.handle_key(key);
+    }
+}

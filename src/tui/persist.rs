@@ -1,0 +1,195 @@
+//! Between the workbench and its session: what to open at start, and what to keep.
+
+use std::path::{Path, PathBuf};
+
+use super::app::{App, Reference};
+use super::cells::Sheet;
+use super::doc::{self, Cursor, Doc};
+use crate::session::{self, CursorState, Session, SessionReference, SessionWing};
+use crate::solver::Options;
+use crate::wing::file;
+
+/// What the workbench starts with.
+#[derive(Debug, Default)]
+pub struct Start {
+    /// Open wings.
+    pub docs: Vec<Doc>,
+    /// Current wing.
+    pub current: usize,
+    /// Pinned reference.
+    pub reference: Option<Reference>,
+    /// The notebook the session chose.
+    pub notebook: Option<PathBuf>,
+    /// Things to tell the user.
+    pub notices: Vec<String>,
+}
+
+/// The bundled example wings: `./wings`, else the source tree's `wings` folder.
+#[must_use]
+pub fn examples_dir() -> Option<PathBuf> {
+    [
+        PathBuf::from("wings"),
+        Path::new(env!("CARGO_MANIFEST_DIR")).join("wings"),
+    ]
+    .into_iter()
+    .find(|p| p.is_dir())
+}
+
+/// Opens wing files; unreadable ones are reported and skipped.
+#[must_use]
+pub fn open_files(files: &[PathBuf], options: Options) -> Start {
+    let mut start = Start::default();
+    for path in files {
+        match file::read(path) {
+            Ok(wing) => start.docs.push(Doc::new(wing, Some(path.clone()), options)),
+            Err(e) => start.notices.push(e.to_string()),
+        }
+    }
+    start
+}
+
+/// Every `*.toml` in the examples folder, sorted.
+#[must_use]
+pub fn example_files(dir: &Path) -> Vec<PathBuf> {
+    let mut files: Vec<PathBuf> = std::fs::read_dir(dir)
+        .map(|r| {
+            r.filter_map(Result::ok)
+                .map(|e| e.path())
+                .filter(|p| p.extension().is_some_and(|x| x == "toml"))
+                .collect()
+        })
+        .unwrap_or_default();
+    files.sort();
+    files
+}
+
+/// Rebuilds the workbench from a session. Recovery copies that no longer parse are written
+/// aside into the session folder and reported; missing wing files are reported.
+#[must_use]
+pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
+    let mut start = Start {
+        notebook: session.notebook.clone(),
+        ..Start::default()
+    };
+    let mut index_map = Vec::new();
+    for entry in &session.wings {
+        index_map.push(start.docs.len());
+        if let Some(doc) = restore_wing(entry, dir, options, &mut start.notices) {
+            start.docs.push(doc);
+        }
+    }
+    start.current = index_map
+        .get(session.current)
+        .copied()
+        .unwrap_or(0)
+        .min(start.docs.len().saturating_sub(1));
+    start.reference = session.reference.as_ref().and_then(|r| {
+        let wing = file::parse(&r.wing, Path::new("reference")).ok()?;
+        let solved = doc::solve(&wing, options);
+        let source = r.source.min(start.docs.len().saturating_sub(1));
+        Some(Reference {
+            wing,
+            solved,
+            source,
+        })
+    });
+    start
+}
+
+fn restore_wing(
+    entry: &SessionWing,
+    dir: &Path,
+    options: Options,
+    notices: &mut Vec<String>,
+) -> Option<Doc> {
+    let from_file = entry.path.as_ref().map(|p| file::read(p));
+    let mut doc = match (&entry.recovery, from_file) {
+        (Some(text), file_result) => {
+            let name = entry
+                .path
+                .clone()
+                .unwrap_or_else(|| PathBuf::from("recovered wing"));
+            match file::parse(text, &name) {
+                Ok(wing) => {
+                    let mut doc = Doc::new(wing, entry.path.clone(), options);
+                    doc.saved = file_result.and_then(Result::ok);
+                    doc
+                }
+                Err(e) => {
+                    notices.push(set_recovery_aside(dir, text, &e.to_string()));
+                    return None;
+                }
+            }
+        }
+        (None, Some(Ok(wing))) => Doc::new(wing, entry.path.clone(), options),
+        (None, Some(Err(e))) => {
+            notices.push(e.to_string());
+            return None;
+        }
+        (None, None) => return None,
+    };
+    doc.cursor = Cursor {
+        sheet: Sheet::from_name(&entry.cursor.sheet),
+        row: entry.cursor.row,
+        col: entry.cursor.column,
+    };
+    Some(doc)
+}
+
+fn set_recovery_aside(dir: &Path, text: &str, reason: &str) -> String {
+    let backup = (1..10_000)
+        .map(|n| dir.join(format!("recovery-{n}.toml")))
+        .find(|p| !p.exists());
+    match backup.map(|p| session::write_atomic(&p, text.as_bytes()).map(|()| p)) {
+        Some(Ok(p)) => format!(
+            "an unsaved wing could not be restored ({reason}); kept in {}",
+            p.display()
+        ),
+        _ => format!("an unsaved wing could not be restored ({reason})"),
+    }
+}
+
+/// The session that puts the workbench back as it is now.
+#[must_use]
+pub fn to_session(app: &App) -> Session {
+    let wings = app
+        .docs
+        .iter()
+        .map(|d| SessionWing {
+            path: d.path.as_ref().map(|p| absolute(p)),
+            recovery: d.unsaved().then(|| file::to_toml(&d.wing)),
+            cursor: CursorState {
+                sheet: d.cursor.sheet.name().to_string(),
+                row: d.cursor.row,
+                column: d.cursor.col,
+            },
+        })
+        .collect();
+    Session {
+        version: session::VERSION,
+        wings,
+        current: app.current,
+        reference: app.reference.as_ref().map(|r| SessionReference {
+            wing: file::to_toml(&r.wing),
+            source: r.source,
+        }),
+        notebook: Some(app.settings.notebook.clone()),
+    }
+}
+
+/// The path made absolute, so a session started elsewhere still finds the file.
+fn absolute(path: &Path) -> PathBuf {
+    std::path::absolute(path).unwrap_or_else(|_| path.to_path_buf())
+}
+
+/// Saves the session if there is a session folder; reports a failure in the status line.
+pub fn save_session(app: &mut App) {
+    let Some(dir) = app.settings.session_dir.clone() else {
+        return;
+    };
+    if let Err(e) = session::save(&dir, &to_session(app)) {
+        let msg = format!("session not saved to {}: {e}", dir.display());
+        app.say(&msg, true);
+    }
+    app.session_changed = false;
+}

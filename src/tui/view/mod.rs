@@ -1,0 +1,124 @@
+//! Drawing: a pure function of `&App` into a buffer, one file per pane.
+
+pub mod condition;
+pub mod help;
+pub mod picker;
+pub mod plots;
+pub mod results;
+pub mod sparkline;
+pub mod status;
+pub mod table;
+pub mod wingbar;
+
+use ratatui::buffer::Buffer;
+use ratatui::layout::{Constraint, Layout, Rect};
+use ratatui::style::Style;
+use ratatui::text::Line;
+use ratatui::widgets::{Block, Clear, Paragraph, Widget, Wrap};
+
+use super::app::{App, Mode};
+use super::cells::Sheet;
+
+/// Smallest terminal the workbench lays out in.
+pub const MIN_WIDTH: u16 = 80;
+/// Smallest terminal height.
+pub const MIN_HEIGHT: u16 = 24;
+/// Rows of the results strip without a reference.
+pub const STRIP_HEIGHT: u16 = 4;
+
+/// Draws the whole workbench into `area` of `buf`.
+pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
+    if area.width < MIN_WIDTH || area.height < MIN_HEIGHT {
+        too_small(area, buf);
+        return;
+    }
+    let [wings, condition, main, strip, status, footer] = Layout::vertical([
+        Constraint::Length(1),
+        Constraint::Length(1),
+        Constraint::Min(8),
+        Constraint::Length(results::height(app)),
+        Constraint::Length(1),
+        Constraint::Length(1),
+    ])
+    .areas(area);
+    let table_width = table::width(app).min(area.width * 3 / 5);
+    let [table_area, plots_area] =
+        Layout::horizontal([Constraint::Length(table_width), Constraint::Min(20)]).areas(main);
+    wingbar::render(app, wings, buf);
+    condition::render(app, condition, buf);
+    table::render(app, table_area, buf);
+    plots::render(app, plots_area, buf);
+    results::render(app, strip, buf);
+    status::render(app, status, buf);
+    status::footer(app, footer, buf);
+    match &app.mode {
+        Mode::Help { .. } => help::render(app, area, buf),
+        Mode::Picker(p) => picker::render(app, p, area, buf),
+        _ => {}
+    }
+}
+
+fn too_small(area: Rect, buf: &mut Buffer) {
+    if area.area() == 0 {
+        return;
+    }
+    let text = format!(
+        "terminal too small: {}x{}, the workbench needs {MIN_WIDTH}x{MIN_HEIGHT}",
+        area.width, area.height
+    );
+    Paragraph::new(text)
+        .wrap(Wrap { trim: true })
+        .render(area, buf);
+}
+
+/// Writes `text` at `(x, y)`, cut to `width` columns (never outside the buffer's area).
+pub fn put(buf: &mut Buffer, x: u16, y: u16, width: u16, text: &str, style: Style) -> u16 {
+    let area = buf.area;
+    if y < area.top() || y >= area.bottom() || x >= area.right() || width == 0 {
+        return x;
+    }
+    let width = width.min(area.right() - x);
+    let (end, _) = buf.set_stringn(x, y, text, usize::from(width), style);
+    end
+}
+
+/// `text` cut or padded to exactly `width` characters, right-aligned when `right`.
+#[must_use]
+pub fn fit(text: &str, width: usize, right: bool) -> String {
+    let cut: String = text.chars().take(width).collect();
+    if right {
+        format!("{cut:>width$}")
+    } else {
+        format!("{cut:<width$}")
+    }
+}
+
+/// A bordered block with the theme's border glyphs; the title is highlighted when focused.
+#[must_use]
+pub fn block<'a>(app: &App, title: Line<'a>, focused: bool) -> Block<'a> {
+    let t = &app.theme;
+    Block::bordered()
+        .border_set(t.glyphs.border)
+        .border_style(if focused { t.header } else { t.dim })
+        .title(title)
+}
+
+/// A centred rectangle of at most `width` x `height` inside `area`, cleared for an overlay.
+pub fn overlay(area: Rect, width: u16, height: u16, buf: &mut Buffer) -> Rect {
+    let w = width.min(area.width);
+    let h = height.min(area.height);
+    let rect = Rect::new(
+        area.x + (area.width - w) / 2,
+        area.y + (area.height - h) / 2,
+        w,
+        h,
+    );
+    Clear.render(rect, buf);
+    rect
+}
+
+/// Whether the cursor is in the given sheet (so that pane shows the selection).
+#[must_use]
+pub fn focused(app: &App, sheet: Sheet) -> bool {
+    app.doc().cursor.sheet == sheet
+}

@@ -1,0 +1,280 @@
+//! The plots pane: span load with the elliptic load of the same lift (and the reference's),
+//! induced angle, and cl/cl_max with the cl_max line, all on one y axis.
+
+use std::f64::consts::PI;
+
+use ratatui::buffer::Buffer;
+use ratatui::layout::Rect;
+use ratatui::style::Style;
+use ratatui::text::{Line, Span};
+use ratatui::widgets::Widget;
+
+use super::sparkline::{self, Limit};
+use super::{block, put};
+use crate::solver::Solution;
+use crate::tui::app::App;
+
+/// Width of the series label at the left of each row.
+const LABEL: u16 = 4;
+
+/// One curve to draw.
+struct Series {
+    label: &'static str,
+    values: Vec<Option<f64>>,
+    style: Style,
+}
+
+/// Draws the plots pane.
+pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
+    let outer = block(
+        app,
+        Line::from(Span::styled(" spanwise ", app.theme.header)),
+        false,
+    );
+    let inner = outer.inner(area);
+    outer.render(area, buf);
+    if inner.width <= LABEL + 2 || inner.height < 6 {
+        return;
+    }
+    let s = match &app.doc().solved {
+        Ok(s) => s,
+        Err(reason) => {
+            put(
+                buf,
+                inner.x,
+                inner.y,
+                inner.width,
+                "no solution:",
+                app.theme.invalid,
+            );
+            put(
+                buf,
+                inner.x,
+                inner.y + 1,
+                inner.width,
+                reason,
+                app.theme.invalid,
+            );
+            return;
+        }
+    };
+    let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
+    let (y0, y1) = y_range(s, reference);
+    let columns = usize::from(inner.width - LABEL);
+    let mut loads = vec![
+        Series {
+            label: "now",
+            values: sparkline::sample(&points(s, |p| p.span_load), y0, y1, columns),
+            style: app.theme.load,
+        },
+        Series {
+            label: "ell",
+            values: elliptic(s, y0, y1, columns),
+            style: app.theme.elliptic,
+        },
+    ];
+    if let Some(r) = reference {
+        loads.push(Series {
+            label: "ref",
+            values: sparkline::sample(&points(r, |p| p.span_load), y0, y1, columns),
+            style: app.theme.reference,
+        });
+    }
+    let alpha_i = sparkline::sample(&points(s, |p| p.alpha_i_deg), y0, y1, columns);
+    let ratio = sparkline::sample(&points(s, |p| p.cl_ratio), y0, y1, columns);
+    // Rows: three titles and the axis, then the curves; cl/cl_max gets the extra rows.
+    let curves = inner.height - 4;
+    let n = u16::try_from(loads.len()).unwrap_or(3) + 2;
+    let per = (curves / (n + 1)).max(1);
+    let ratio_rows = curves.saturating_sub(per * (n - 1)).max(2);
+    let mut y = inner.y;
+    let load_range = joint_range(&loads);
+    y = title(app, inner, y, "span load c*cl/c_mean", load_range, buf);
+    for series in &loads {
+        y = curve(app, inner, y, per, series, load_range, None, buf);
+    }
+    let ai = Series {
+        label: "a_i",
+        values: alpha_i,
+        style: app.theme.load,
+    };
+    let ai_range = joint_range(std::slice::from_ref(&ai));
+    y = title(app, inner, y, "alpha_i deg", ai_range, buf);
+    y = curve(app, inner, y, per, &ai, ai_range, None, buf);
+    let cr = Series {
+        label: "cl/m",
+        values: ratio,
+        style: app.theme.load,
+    };
+    let cr_range = joint_range(std::slice::from_ref(&cr));
+    let top = cr_range.map_or(1.25, |(_, hi)| hi.max(1.0) * 1.25);
+    let limit = Limit {
+        at: 1.0,
+        line: app.theme.stall,
+        over: app.theme.stall,
+    };
+    let rows = ratio_rows.min(inner.bottom().saturating_sub(y + 2)).max(1);
+    y = title(
+        app,
+        inner,
+        y,
+        &format!("cl/cl_max ({}=1)", app.theme.glyphs.limit.repeat(2)),
+        cr_range,
+        buf,
+    );
+    y = curve(app, inner, y, rows, &cr, Some((0.0, top)), Some(limit), buf);
+    axis(app, s, inner, y.min(inner.bottom() - 1), (y0, y1), buf);
+}
+
+fn points(s: &Solution, f: impl Fn(&crate::solver::SpanPoint) -> f64) -> Vec<(f64, f64)> {
+    s.spanwise.iter().map(|p| (p.y, f(p))).collect()
+}
+
+/// The y range covering this wing and the reference.
+fn y_range(s: &Solution, reference: Option<&Solution>) -> (f64, f64) {
+    let ends = |s: &Solution| {
+        let g = &s.geometry;
+        (g.y_mid - 0.5 * g.span, g.y_mid + 0.5 * g.span)
+    };
+    let (a, b) = ends(s);
+    reference.map_or((a, b), |r| {
+        let (c, d) = ends(r);
+        (a.min(c), b.max(d))
+    })
+}
+
+/// The elliptic span load of the same CL and span: (4 CL / pi) sqrt(1 - eta^2), since
+/// the integral of c*cl/c_mean over the span is CL b.
+fn elliptic(s: &Solution, y0: f64, y1: f64, columns: usize) -> Vec<Option<f64>> {
+    let g = &s.geometry;
+    let half = 0.5 * g.span;
+    let step = (y1 - y0) / columns.max(1) as f64;
+    (0..columns)
+        .map(|i| {
+            let eta = (y0 + (i as f64 + 0.5) * step - g.y_mid) / half;
+            (eta.abs() <= 1.0).then(|| 4.0 * s.coefficients.cl / PI * (1.0 - eta * eta).sqrt())
+        })
+        .collect()
+}
+
+fn joint_range(series: &[Series]) -> Option<(f64, f64)> {
+    let all: Vec<Option<f64>> = series
+        .iter()
+        .flat_map(|s| s.values.iter().copied())
+        .collect();
+    sparkline::range(&all)
+}
+
+fn title(
+    app: &App,
+    inner: Rect,
+    y: u16,
+    name: &str,
+    range: Option<(f64, f64)>,
+    buf: &mut Buffer,
+) -> u16 {
+    if y >= inner.bottom() {
+        return y;
+    }
+    let x = put(buf, inner.x, y, inner.width, name, app.theme.header);
+    if let Some((lo, hi)) = range {
+        let text = format!("  min {} max {}", short(lo), short(hi));
+        put(
+            buf,
+            x,
+            y,
+            inner.right().saturating_sub(x),
+            &text,
+            app.theme.dim,
+        );
+    }
+    y + 1
+}
+
+/// Draws one series `rows` high; the scale starts at zero unless the curve goes negative.
+#[allow(
+    clippy::too_many_arguments,
+    reason = "a drawing helper with plain inputs"
+)]
+fn curve(
+    app: &App,
+    inner: Rect,
+    y: u16,
+    rows: u16,
+    series: &Series,
+    range: Option<(f64, f64)>,
+    limit: Option<Limit>,
+    buf: &mut Buffer,
+) -> u16 {
+    let rows = rows.min(inner.bottom().saturating_sub(y));
+    if rows == 0 {
+        return y;
+    }
+    put(
+        buf,
+        inner.x,
+        y + rows - 1,
+        LABEL,
+        series.label,
+        app.theme.dim,
+    );
+    let (lo, hi) = range.unwrap_or((0.0, 1.0));
+    let scale = (
+        lo.min(0.0),
+        if hi > lo.min(0.0) {
+            hi
+        } else {
+            lo.min(0.0) + 1.0
+        },
+    );
+    let area = Rect::new(inner.x + LABEL, y, inner.width - LABEL, rows);
+    sparkline::draw(
+        buf,
+        area,
+        &series.values,
+        scale,
+        series.style,
+        limit,
+        &app.theme.glyphs,
+    );
+    y + rows
+}
+
+/// The y axis: its ends, the root, and the first station to stall.
+fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf: &mut Buffer) {
+    let width = inner.width - LABEL;
+    let left = format!("{} m", short(y0));
+    let right = format!("{} m", short(y1));
+    let x0 = inner.x + LABEL;
+    put(buf, inner.x, y, LABEL, "y", app.theme.dim);
+    put(buf, x0, y, width, &left, app.theme.dim);
+    let rlen = u16::try_from(right.chars().count()).unwrap_or(0);
+    put(
+        buf,
+        (x0 + width).saturating_sub(rlen),
+        y,
+        rlen,
+        &right,
+        app.theme.dim,
+    );
+    if let Some(stall) = s.first_stall {
+        let t = (stall.y - y0) / (y1 - y0);
+        if (0.0..=1.0).contains(&t) {
+            let col = ((t * f64::from(width)).floor() as u16).min(width - 1);
+            put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
+        }
+    }
+}
+
+/// A number in at most about six characters.
+#[must_use]
+pub fn short(v: f64) -> String {
+    let a = v.abs();
+    if a != 0.0 && !(0.01..10_000.0).contains(&a) {
+        format!("{v:.1e}")
+    } else if a >= 100.0 {
+        format!("{v:.0}")
+    } else {
+        format!("{v:.2}")
+    }
+}

@@ -1,0 +1,179 @@
+//! The results strip: the integrated numbers, their change against the pinned reference,
+//! and the first validity warning.
+
+use ratatui::buffer::Buffer;
+use ratatui::layout::Rect;
+use ratatui::style::Style;
+
+use super::put;
+use crate::solver::Solution;
+use crate::text::inert;
+use crate::tui::app::App;
+
+/// One number in the strip.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Item {
+    /// Its name.
+    pub label: &'static str,
+    /// The value, formatted.
+    pub value: String,
+    /// Change against the reference, formatted with sign.
+    pub delta: Option<String>,
+}
+
+/// The strip's items for a solution, with deltas against `reference`.
+#[must_use]
+pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
+    let mut out = Vec::new();
+    let c = &s.coefficients;
+    let ld =
+        |s: &Solution| (s.coefficients.cd > 0.0).then(|| s.coefficients.cl / s.coefficients.cd);
+    let mut add = |label, v: Option<f64>, r: Option<f64>, digits: usize, unit: &str| {
+        let v = v.map(|v| no_negative_zero(v, digits));
+        out.push(Item {
+            label,
+            value: v.map_or_else(|| "n/a".into(), |v| format!("{v:.digits$}{unit}")),
+            delta: match (v, r) {
+                (Some(v), Some(r)) => {
+                    Some(format!("{:+.digits$}", no_negative_zero(v - r, digits)))
+                }
+                _ => None,
+            },
+        });
+    };
+    let rc = reference.map(|r| r.coefficients);
+    add("CL", Some(c.cl), rc.map(|r| r.cl), 4, "");
+    add("CDi", Some(c.cdi), rc.map(|r| r.cdi), 5, "");
+    add("e", c.e, rc.and_then(|r| r.e), 4, "");
+    add(
+        "CL_a",
+        Some(s.cl_alpha),
+        reference.map(|r| r.cl_alpha),
+        3,
+        "/rad",
+    );
+    add("CD", Some(c.cd), rc.map(|r| r.cd), 5, "");
+    add("L/D", ld(s), reference.and_then(ld), 1, "");
+    add("Cl_roll", Some(c.cl_roll), rc.map(|r| r.cl_roll), 5, "");
+    add(
+        "alpha",
+        Some(c.alpha_deg),
+        rc.map(|r| r.alpha_deg),
+        2,
+        " deg",
+    );
+    let stall_y = |s: &Solution| s.first_stall.map(|f| f.y);
+    let stall_cl = |s: &Solution| s.first_stall.map(|f| f.cl_wing);
+    add("stall y", stall_y(s), reference.and_then(stall_y), 3, " m");
+    add("CL_stall", stall_cl(s), reference.and_then(stall_cl), 3, "");
+    let m = |s: &Solution| Some(s.flight.root_bending_moment);
+    add("M_root", m(s), reference.and_then(m), 1, " N m");
+    out
+}
+
+/// Values that round to zero are shown as 0, never -0.
+fn no_negative_zero(v: f64, digits: usize) -> f64 {
+    let half_unit = 0.5 * 10f64.powi(-i32::try_from(digits).unwrap_or(0));
+    if v.abs() < half_unit {
+        0.0
+    } else {
+        v
+    }
+}
+
+/// Rows the strip needs: deltas against a reference take a row more.
+#[must_use]
+pub fn height(app: &App) -> u16 {
+    if app.reference.is_some() {
+        super::STRIP_HEIGHT + 1
+    } else {
+        super::STRIP_HEIGHT
+    }
+}
+
+/// Draws the strip.
+pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
+    let t = &app.theme;
+    if area.height == 0 {
+        return;
+    }
+    let s = match &app.doc().solved {
+        Ok(s) => s,
+        Err(reason) => {
+            put(
+                buf,
+                area.x,
+                area.y,
+                area.width,
+                &format!("not solved: {reason}"),
+                t.invalid,
+            );
+            return;
+        }
+    };
+    let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
+    let delta_mark = if t.glyphs.stall == "^" { "d" } else { "Δ" };
+    let value_rows = area.height - 1;
+    let (mut x, mut y) = (area.x, area.y);
+    for item in items(s, reference) {
+        let delta = item.delta.as_ref().map(|d| format!(" {delta_mark}{d}"));
+        let width = item.label.len()
+            + 1
+            + item.value.chars().count()
+            + delta.as_ref().map_or(0, |d| d.chars().count())
+            + 3;
+        let width = u16::try_from(width).unwrap_or(u16::MAX);
+        if x > area.x && x + width > area.right() {
+            x = area.x;
+            y += 1;
+        }
+        if y >= area.y + value_rows {
+            break;
+        }
+        x = put(buf, x, y, area.right() - x, item.label, t.dim);
+        x = put(
+            buf,
+            x,
+            y,
+            area.right().saturating_sub(x),
+            &format!(" {}", item.value),
+            t.header,
+        );
+        if let Some(d) = delta {
+            x = put(buf, x, y, area.right().saturating_sub(x), &d, t.reference);
+        }
+        x = put(buf, x, y, area.right().saturating_sub(x), "   ", t.text);
+    }
+    warnings(s, area, buf, t.warning, t.dim);
+}
+
+fn warnings(s: &Solution, area: Rect, buf: &mut Buffer, warn: Style, dim: Style) {
+    let y = area.bottom() - 1;
+    match s.warnings.first() {
+        Some(first) => {
+            let more = if s.warnings.len() > 1 {
+                format!(" (+{} more)", s.warnings.len() - 1)
+            } else {
+                String::new()
+            };
+            put(
+                buf,
+                area.x,
+                y,
+                area.width,
+                &format!("! {}{more}", inert(first)),
+                warn,
+            );
+        }
+        None => {
+            put(
+                buf,
+                area.x,
+                y,
+                area.width,
+                "no validity warnings for this case",
+                dim,
+            );
+        }
+    }
+}

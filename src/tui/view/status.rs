@@ -1,0 +1,65 @@
+//! The status line (messages, prompts, the quit question) and the footer of key hints.
+
+use ratatui::buffer::Buffer;
+use ratatui::layout::Rect;
+use ratatui::widgets::Widget;
+
+use super::put;
+use crate::tui::app::{App, Mode};
+use crate::tui::editor::Purpose;
+use crate::tui::keymap;
+
+/// Draws the status line.
+pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
+    let t = &app.theme;
+    match &app.mode {
+        Mode::Edit(editor) if !matches!(editor.purpose, Purpose::Cell { .. }) => {
+            let x = put(
+                buf,
+                area.x,
+                area.y,
+                area.width,
+                editor.purpose.prompt(),
+                t.header,
+            );
+            let rest = Rect::new(x, area.y, area.right().saturating_sub(x), 1);
+            let mut field = editor.area.clone();
+            if editor.error.is_some() {
+                field.set_style(t.invalid);
+            }
+            (&field).render(rest, buf);
+            return;
+        }
+        Mode::Confirm => {
+            let n = app.docs.iter().filter(|d| d.unsaved()).count();
+            let text =
+                format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n");
+            put(buf, area.x, area.y, area.width, &text, t.warning);
+            return;
+        }
+        _ => {}
+    }
+    let style = if app.status.error { t.invalid } else { t.text };
+    put(buf, area.x, area.y, area.width, &app.status.text, style);
+}
+
+/// Draws the footer: the few keys that matter in the current mode.
+pub fn footer(app: &App, area: Rect, buf: &mut Buffer) {
+    let t = &app.theme;
+    let mut x = area.x;
+    for (key, hint) in keymap::hints(app.mode.kind()) {
+        let need = u16::try_from(key.len() + hint.len() + 3).unwrap_or(u16::MAX);
+        if x + need > area.right() {
+            break;
+        }
+        x = put(buf, x, area.y, area.right() - x, &key, t.key);
+        x = put(
+            buf,
+            x,
+            area.y,
+            area.right() - x,
+            &format!(" {hint}  "),
+            t.dim,
+        );
+    }
+}

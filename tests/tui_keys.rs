@@ -1,0 +1,307 @@
+//! Key sequences driven through the workbench state.
+
+mod tui_support;
+
+use gammaline::tui::app::Mode;
+use gammaline::tui::cells::Sheet;
+use gammaline::wing::file;
+use tui_support::{app, draw, press, retype, shown_cl};
+
+#[test]
+fn editing_a_chord_resolves_and_changes_cl() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    let before = app.doc().solved.as_ref().expect("solves").coefficients.cl;
+    // Row 1, column chord; edit to 2.0.
+    press(&mut app, "l\n");
+    retype(&mut app, "2.0");
+    press(&mut app, "\n");
+    assert!(matches!(app.mode, Mode::Normal));
+    assert_eq!(app.doc().wing.stations[0].chord, 2.0);
+    assert!(app.doc().unsaved());
+    let after = app.doc().solved.as_ref().expect("solves").coefficients.cl;
+    // The solver is the reference: the app must show exactly its answer for the edited wing.
+    let direct = gammaline::solver::solve(
+        &app.doc().wing,
+        &app.doc().wing.condition,
+        Default::default(),
+    )
+    .expect("solves")
+    .coefficients
+    .cl;
+    assert_eq!(after, direct);
+    assert!(
+        (after - before).abs() > 1e-4,
+        "CL moved: {before} -> {after}"
+    );
+    let screen = draw(&app, 80, 24);
+    let shown = shown_cl(&screen).expect("CL on screen");
+    assert!((shown - after).abs() < 5e-5, "{shown} vs {after}");
+}
+
+#[test]
+fn an_invalid_value_is_refused_with_the_reason_and_not_committed() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "l\n");
+    retype(&mut app, "-1");
+    press(&mut app, "\n");
+    let Mode::Edit(editor) = &app.mode else {
+        panic!("the editor stays open on a refused value")
+    };
+    let reason = editor.error.clone().expect("a reason");
+    assert!(
+        reason.contains("chord") && reason.contains("> 0"),
+        "{reason}"
+    );
+    assert_eq!(app.doc().wing.stations[0].chord, 1.6);
+    let screen = tui_support::text(&draw(&app, 80, 24));
+    assert!(screen.contains("must be > 0"), "{screen}");
+    // Not a number is refused too.
+    retype(&mut app, "abc");
+    press(&mut app, "\n");
+    let Mode::Edit(editor) = &app.mode else {
+        panic!("still editing")
+    };
+    assert!(editor
+        .error
+        .as_deref()
+        .is_some_and(|e| e.contains("not a number")));
+    press(&mut app, "\u{1b}");
+    assert!(matches!(app.mode, Mode::Normal));
+    assert!(!app.doc().unsaved());
+}
+
+#[test]
+fn y_out_of_order_is_refused() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "j\n");
+    retype(&mut app, "6");
+    press(&mut app, "\n");
+    assert!(matches!(app.mode, Mode::Edit(_)));
+    assert_eq!(app.doc().wing.stations[1].y, 2.5);
+}
+
+#[test]
+fn nudges_take_small_and_large_steps_and_undo_redo_walk_back() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "ll+");
+    assert!((app.doc().wing.stations[0].twist_deg - 0.1).abs() < 1e-12);
+    press(&mut app, ">");
+    assert!((app.doc().wing.stations[0].twist_deg - 1.1).abs() < 1e-12);
+    press(&mut app, "--");
+    assert!((app.doc().wing.stations[0].twist_deg - 0.9).abs() < 1e-12);
+    press(&mut app, "uuuu");
+    assert_eq!(app.doc().wing.stations[0].twist_deg, 0.0);
+    assert!(!app.doc().unsaved());
+    press(&mut app, "U");
+    assert!((app.doc().wing.stations[0].twist_deg - 0.1).abs() < 1e-12);
+}
+
+#[test]
+fn insert_interpolates_duplicate_copies_delete_removes() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "i");
+    let s = &app.doc().wing.stations;
+    assert_eq!(s.len(), 4);
+    assert_eq!((s[1].y, s[1].twist_deg), (1.25, -0.5));
+    approx::assert_abs_diff_eq!(s[1].chord, 1.45, epsilon = 1e-12);
+    assert_eq!(app.doc().cursor.row, 1);
+    press(&mut app, "jD");
+    let s = &app.doc().wing.stations;
+    assert_eq!(s.len(), 5);
+    assert_eq!((s[3].y, s[3].chord), (3.75, 1.3));
+    press(&mut app, "d");
+    assert_eq!(app.doc().wing.stations.len(), 4);
+    // Deleting the root of a symmetric wing breaks a rule: refused.
+    press(&mut app, "gd");
+    assert_eq!(app.doc().wing.stations.len(), 4);
+    assert!(
+        app.status.error && app.status.text.contains("y = 0"),
+        "{:?}",
+        app.status
+    );
+}
+
+#[test]
+fn nudging_the_airfoil_cycles_the_keys() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "lll+");
+    assert_eq!(app.doc().wing.stations[0].airfoil, "tip");
+}
+
+#[test]
+fn condition_bar_is_edited_in_place() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "\t\t\t");
+    assert_eq!(app.doc().cursor.sheet, Sheet::Condition);
+    press(&mut app, "\n");
+    retype(&mut app, "3");
+    press(&mut app, "\n");
+    assert_eq!(app.doc().wing.condition.alpha_deg, 3.0);
+    let cl = app.doc().solved.as_ref().expect("solves").coefficients.cl;
+    // Switch to a target CL: the same CL is kept, now as the target.
+    press(&mut app, "t");
+    assert_eq!(app.doc().wing.condition.target_cl, Some(cl));
+    press(&mut app, "+");
+    let target = app.doc().wing.condition.target_cl.expect("target");
+    let solved = app.doc().solved.as_ref().expect("solves").coefficients.cl;
+    assert!((solved - target).abs() < 1e-9);
+    let screen = tui_support::text(&draw(&app, 80, 24));
+    assert!(screen.contains("target CL"), "{screen}");
+}
+
+#[test]
+fn pin_shows_deltas_and_reference_load() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "p");
+    assert!(app.reference.is_some());
+    press(&mut app, "l>");
+    let screen = tui_support::text(&draw(&app, 80, 24));
+    assert!(screen.contains("Δ+"), "{screen}");
+    assert!(screen.contains("ref "), "{screen}");
+    assert!(
+        screen.contains("M_root"),
+        "the strip grows to hold the deltas: {screen}"
+    );
+    assert!(
+        screen.contains("(ref)"),
+        "the wing it was pinned from is marked: {screen}"
+    );
+}
+
+#[test]
+fn quit_asks_only_with_unsaved_work() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "q");
+    assert!(app.quit, "nothing unsaved: quits at once");
+    let mut app = tui_support::app(dir.path());
+    press(&mut app, "l+q");
+    assert!(!app.quit);
+    assert!(matches!(app.mode, Mode::Confirm));
+    press(&mut app, "n");
+    assert!(!app.quit && matches!(app.mode, Mode::Normal));
+    press(&mut app, "qy");
+    assert!(app.quit);
+}
+
+#[test]
+fn save_writes_the_file_atomically_and_revert_reads_it_back() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "l+s");
+    assert!(!app.doc().unsaved(), "{:?}", app.status);
+    let path = app.doc().path.clone().expect("path");
+    let saved = file::read(&path).expect("saved file reads back");
+    assert_eq!(saved, app.doc().wing);
+    let leftovers: Vec<_> = std::fs::read_dir(dir.path())
+        .expect("list")
+        .filter_map(Result::ok)
+        .filter(|e| e.file_name().to_string_lossy().contains(".tmp-"))
+        .collect();
+    assert!(leftovers.is_empty());
+    press(&mut app, ">>");
+    assert!(app.doc().unsaved());
+    press(&mut app, "R");
+    assert_eq!(app.doc().wing, saved);
+    assert!(!app.doc().unsaved());
+}
+
+#[test]
+fn save_as_and_open_by_path() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    let copy = dir.path().join("copy.toml");
+    press(&mut app, "S");
+    retype(&mut app, &copy.display().to_string());
+    press(&mut app, "\n");
+    assert_eq!(app.doc().path.as_deref(), Some(copy.as_path()));
+    assert!(copy.exists());
+    press(&mut app, "o");
+    retype(
+        &mut app,
+        &dir.path().join("missing.toml").display().to_string(),
+    );
+    press(&mut app, "\n");
+    assert!(
+        matches!(app.mode, Mode::Edit(_)),
+        "a missing file keeps the prompt open"
+    );
+    press(&mut app, "\u{1b}");
+    press(&mut app, "o");
+    retype(
+        &mut app,
+        &dir.path().join("tapered.toml").display().to_string(),
+    );
+    press(&mut app, "\n");
+    assert_eq!(app.docs.len(), 2);
+    assert_eq!(app.current, 1);
+    press(&mut app, "]");
+    assert_eq!(app.current, 0);
+    press(&mut app, "[");
+    assert_eq!(app.current, 1);
+}
+
+#[test]
+fn picker_lists_open_and_saved_wings() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    std::fs::write(
+        dir.path().join("other.toml"),
+        tui_support::TAPERED.replace("Tapered trainer", "Other"),
+    )
+    .expect("write");
+    press(&mut app, "w");
+    let Mode::Picker(p) = &app.mode else {
+        panic!("picker open")
+    };
+    assert_eq!(p.entries.len(), 2, "{:?}", p.entries);
+    press(&mut app, "j\n");
+    assert_eq!(app.docs.len(), 2);
+    assert_eq!(app.doc().wing.name, "Other");
+}
+
+#[test]
+fn copy_appends_the_result_line_to_the_notebook() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "y");
+    assert!(
+        app.status.text.contains("sent to clipboard"),
+        "{:?}",
+        app.status
+    );
+    assert!(app.status.text.contains("notebook.txt"));
+    assert_eq!(app.outbox.len(), 1);
+    assert!(app.outbox[0].starts_with("\u{1b}]52;c;") && app.outbox[0].ends_with('\u{7}'));
+    let notebook = std::fs::read_to_string(dir.path().join("notebook.txt")).expect("notebook");
+    let line = gammaline::report::line(&app.doc().wing, app.doc().solved.as_ref().expect("solved"));
+    assert!(notebook.trim_end().ends_with(&line), "{notebook}");
+    assert!(notebook.starts_with("20"), "timestamped: {notebook}");
+}
+
+#[test]
+fn help_lists_every_binding_and_the_cautions() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "?");
+    let screen = tui_support::text(&draw(&app, 100, 40));
+    assert!(screen.contains("preliminary design estimates"), "{screen}");
+    assert!(screen.contains("airworthiness"));
+    let all: String = gammaline::tui::view::help::lines()
+        .into_iter()
+        .map(|l| l.0 + "\n")
+        .collect();
+    for b in gammaline::tui::keymap::BINDINGS {
+        assert!(all.contains(b.help), "help misses {}", b.help);
+    }
+    press(&mut app, "\u{1b}");
+    assert!(matches!(app.mode, Mode::Normal));
+}
