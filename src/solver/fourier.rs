@@ -70,6 +70,25 @@ pub fn series_at(a: &[f64], theta: f64, ratios: &mut [f64]) -> (f64, f64) {
     (load * s, induced)
 }
 
+/// Sums of two series at one angle sharing one evaluation of the sine ratios:
+/// `[(sum A_n sin n theta, sum n A_n sin n theta / sin theta); 2]` for `a` and `b`.
+#[must_use]
+pub fn series_pair_at(a: &[f64], b: &[f64], theta: f64, ratios: &mut [f64]) -> [(f64, f64); 2] {
+    sine_ratios(theta, ratios);
+    let s = theta.sin();
+    let mut out = [(0.0, 0.0); 2];
+    for (n, ((&an, &bn), &u)) in a.iter().zip(b).zip(ratios.iter()).enumerate() {
+        let order = (n + 1) as f64;
+        out[0].0 += an * u;
+        out[0].1 += order * an * u;
+        out[1].0 += bn * u;
+        out[1].1 += order * bn * u;
+    }
+    out[0].0 *= s;
+    out[1].0 *= s;
+    out
+}
+
 /// The collocation matrix M[k][n-1] = sin(n theta_k) (mu_k + n / sin theta_k), with
 /// mu_k = 4 b / (a0_k c_k).
 #[must_use]
@@ -111,6 +130,56 @@ pub struct Responses {
     pub per_alpha: Vec<f64>,
     /// Coefficients at zero reference angle of attack (twist, camber and controls).
     pub at_zero: Vec<f64>,
+}
+
+/// Solves a mirrored wing's system in two halves.
+///
+/// On a wing mirrored about its span midpoint, mu(theta) = mu(pi - theta) and
+/// sin(n (pi - theta)) = (-1)^(n+1) sin(n theta), so adding and subtracting the equations at
+/// theta_k and pi - theta_k splits the system exactly: the odd terms answer the symmetric part
+/// of the right-hand side, the even terms the antisymmetric part. Two systems of N/2 cost a
+/// quarter of one of N to factor. `mu` and `rhs` are given at all N collocation angles.
+#[must_use]
+pub fn responses_mirrored(thetas: &[f64], mu: &[f64], rhs: &[f64]) -> Option<Responses> {
+    let n = thetas.len();
+    let (odd, even) = (n.div_ceil(2), n / 2);
+    let mut m_odd = DMatrix::zeros(odd, odd);
+    let mut m_even = DMatrix::zeros(even, even);
+    let mut ratios = vec![0.0; n];
+    for k in 0..odd {
+        sine_ratios(thetas[k], &mut ratios);
+        let s = thetas[k].sin();
+        for (j, &u) in ratios.iter().enumerate() {
+            let value = u * (mu[k] * s + (j + 1) as f64);
+            match (j % 2, k < even) {
+                (0, _) => m_odd[(k, j / 2)] = value,
+                (_, true) => m_even[(k, j / 2)] = value,
+                _ => {}
+            }
+        }
+    }
+    let mirror = |k: usize| rhs[n - 1 - k];
+    let symmetric: Vec<f64> = (0..odd).map(|k| 0.5 * (rhs[k] + mirror(k))).collect();
+    let antisymmetric: Vec<f64> = (0..even).map(|k| 0.5 * (rhs[k] - mirror(k))).collect();
+    let lu_odd = m_odd.lu();
+    let per_alpha_odd = lu_odd.solve(&DVector::from_element(odd, 1.0))?;
+    let zero_odd = lu_odd.solve(&DVector::from_vec(symmetric))?;
+    let zero_even = if even > 0 {
+        m_even.lu().solve(&DVector::from_vec(antisymmetric))?
+    } else {
+        DVector::zeros(0)
+    };
+    let mut per_alpha = vec![0.0; n];
+    let mut at_zero = vec![0.0; n];
+    for j in 0..odd {
+        per_alpha[2 * j] = per_alpha_odd[j];
+        at_zero[2 * j] = zero_odd[j];
+    }
+    for j in 0..even {
+        at_zero[2 * j + 1] = zero_even[j];
+    }
+    let finite = per_alpha.iter().chain(&at_zero).all(|v| v.is_finite());
+    finite.then_some(Responses { per_alpha, at_zero })
 }
 
 /// Factors `m` once and back-substitutes both right-hand sides.

@@ -4,7 +4,7 @@
 //! the profile drag, induced yaw and bending moment are polynomials of degree two at most.
 //! Their coefficients are integrated once per geometry, so an alpha sweep costs almost nothing.
 
-use super::fourier::{series_at, SpanMap};
+use super::fourier::{series_pair_at, SpanMap};
 use crate::wing::Wing;
 
 /// p0 + p1 alpha + p2 alpha^2 (alpha in radians).
@@ -103,8 +103,7 @@ pub fn integrate(
             let y = map.y(theta);
             // dy = (b/2) sin(theta) d(theta)
             let w = weight * half * map.half_span * theta.sin();
-            let (ga, ia) = series_at(per_alpha, theta, &mut ratios);
-            let (g0, i0) = series_at(at_zero, theta, &mut ratios);
+            let [(ga, ia), (g0, i0)] = series_pair_at(per_alpha, at_zero, theta, &mut ratios);
             // c*cl = 4 b sum A_n sin(n theta)
             let ccl = (4.0 * span * g0, 4.0 * span * ga);
             let induced = (i0, ia);

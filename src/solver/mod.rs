@@ -71,6 +71,8 @@ pub struct Prepared {
     integrals: LoadIntegrals,
     wing: Wing,
     warnings: Vec<String>,
+    /// First stall as `(alpha in radians, y)`: independent of alpha, so found once here.
+    stall: Option<(f64, f64)>,
 }
 
 /// Builds and factors the collocation system of a wing.
@@ -103,8 +105,12 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     for span in &control_spans {
         fourier::add_control_shift(map, &thetas, span, &mut rhs);
     }
-    let responses =
-        fourier::responses(fourier::matrix(&thetas, &mu), &rhs).ok_or(SolveError::Singular)?;
+    let responses = if wing.symmetric {
+        fourier::responses_mirrored(&thetas, &mu, &rhs)
+    } else {
+        fourier::responses(fourier::matrix(&thetas, &mu), &rhs)
+    }
+    .ok_or(SolveError::Singular)?;
     let edges: Vec<f64> = control_spans
         .iter()
         .flat_map(|s| [s.y_from, s.y_to])
@@ -118,6 +124,8 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         &edges,
     );
     let warnings = validate::warnings(wing, &geometry);
+    let evaluator = spanwise::Evaluator::new(wing, map, 1.0, 1.0);
+    let stall = critical_section(&evaluator, &thetas, &responses);
     Ok(Prepared {
         geometry,
         map,
@@ -126,7 +134,36 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         integrals,
         wing: wing.clone(),
         warnings,
+        stall,
     })
+}
+
+/// Linear critical-section estimate: each output point's cl is linear in alpha, so the
+/// alpha (radians) at which it reaches cl_max is found exactly; the least of these is the
+/// first stall, returned as `(alpha, y)`. Right-half points win ties, so a mirrored wing
+/// reports y >= 0.
+fn critical_section(
+    evaluator: &spanwise::Evaluator<'_>,
+    thetas: &[f64],
+    responses: &fourier::Responses,
+) -> Option<(f64, f64)> {
+    let mut ratios = vec![0.0; thetas.len()];
+    let mut best: Option<(f64, f64)> = None;
+    for &theta in thetas.iter().rev() {
+        let parts =
+            evaluator.cl_parts(&responses.per_alpha, &responses.at_zero, theta, &mut ratios);
+        let Some((slope, zero, cl_max, y)) = parts else {
+            continue;
+        };
+        if slope <= 1e-9 {
+            continue;
+        }
+        let alpha = (cl_max - zero) / slope;
+        if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
+            best = Some((alpha, y));
+        }
+    }
+    best
 }
 
 /// Solves a wing at a condition with default options.
@@ -237,6 +274,12 @@ impl Prepared {
     #[must_use]
     pub const fn geometry(&self) -> &Geometry {
         &self.geometry
+    }
+
+    /// The spanwise integrals as polynomials in alpha (for checks and reports).
+    #[must_use]
+    pub const fn integrals(&self) -> &LoadIntegrals {
+        &self.integrals
     }
 
     /// Lift-curve slope dCL/dalpha, per radian.
@@ -353,9 +396,10 @@ impl Prepared {
             left_root_bending_moment: q * self.integrals.left_moment.at(alpha),
         };
         let evaluator = spanwise::Evaluator::new(&self.wing, self.map, g.area / g.span, v);
+        let mut ratios = vec![0.0; fourier.len()];
         let spanwise = fourier::collocation_angles(fourier.len())
             .into_iter()
-            .map(|theta| evaluator.at_theta(&fourier, theta, alpha))
+            .map(|theta| evaluator.at_theta(&fourier, theta, alpha, &mut ratios))
             .collect::<Vec<_>>();
         let stations = self
             .wing
@@ -364,7 +408,7 @@ impl Prepared {
             .map(|s| SpanPoint {
                 // exactly the station's y, not y(theta(y)) with its rounding
                 y: s.y,
-                ..evaluator.at_theta(&fourier, self.map.theta(s.y), alpha)
+                ..evaluator.at_theta(&fourier, self.map.theta(s.y), alpha, &mut ratios)
             })
             .collect();
         let mean_slope = self.integrals.mean_lift_slope;
@@ -383,37 +427,17 @@ impl Prepared {
                 f64::NAN
             },
             root_bending_per_q,
-            first_stall: self.first_stall(&evaluator),
+            first_stall: self.stall.map(|(alpha, y)| FirstStall {
+                y,
+                cl_wing: self.coefficients(alpha).cl,
+                alpha_deg: alpha.to_degrees(),
+            }),
             spanwise,
             stations,
             flight,
             terms: self.per_alpha.len(),
             warnings,
         }
-    }
-
-    /// Linear critical-section estimate: each output point's cl is linear in alpha, so the
-    /// alpha at which it reaches cl_max is found exactly; the least of these is the first
-    /// stall. Right-half points win ties, so a symmetric wing reports y >= 0.
-    fn first_stall(&self, evaluator: &spanwise::Evaluator<'_>) -> Option<FirstStall> {
-        let thetas = fourier::collocation_angles(self.per_alpha.len());
-        let mut best: Option<(f64, f64)> = None;
-        for &theta in thetas.iter().rev() {
-            let zero = evaluator.at_theta(&self.at_zero, theta, 0.0);
-            let slope = evaluator.cl_per_alpha(&self.per_alpha, theta);
-            if slope <= 1e-9 {
-                continue;
-            }
-            let alpha = (zero.cl_max - zero.cl) / slope;
-            if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
-                best = Some((alpha, zero.y));
-            }
-        }
-        best.map(|(alpha, y)| FirstStall {
-            y,
-            cl_wing: self.coefficients(alpha).cl,
-            alpha_deg: alpha.to_degrees(),
-        })
     }
 }
 

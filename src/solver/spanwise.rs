@@ -1,7 +1,7 @@
 //! Local values along the span from the sine-series coefficients.
 
 use super::controls::ControlSpan;
-use super::fourier::{series_at, SpanMap};
+use super::fourier::{series_at, series_pair_at, SpanMap};
 use crate::wing::Wing;
 
 /// Local values at one spanwise point.
@@ -51,9 +51,9 @@ impl<'w> Evaluator<'w> {
     /// pointed tip the section's own lift curve gives the limit,
     /// cl = a0 (alpha_eff) with alpha_eff from the lifting-line equation.
     /// `alpha` (radians) is the reference angle that `a` belongs to, used only at a pointed tip.
-    pub fn at_theta(&self, a: &[f64], theta: f64, alpha: f64) -> SpanPoint {
-        let mut ratios = vec![0.0; a.len()];
-        let (load, induced) = series_at(a, theta, &mut ratios);
+    /// `ratios` is scratch space of the series' length.
+    pub fn at_theta(&self, a: &[f64], theta: f64, alpha: f64, ratios: &mut [f64]) -> SpanPoint {
+        let (load, induced) = series_at(a, theta, ratios);
         let y = self.map.y(theta);
         let section = self.wing.section_at(y);
         let span = 2.0 * self.map.half_span;
@@ -83,8 +83,22 @@ impl<'w> Evaluator<'w> {
         }
     }
 
-    /// d(cl)/d(alpha) at `theta` for the per-alpha response `a` (per radian).
-    pub fn cl_per_alpha(&self, a: &[f64], theta: f64) -> f64 {
-        self.at_theta(a, theta, 1.0).cl
+    /// The section cl at `theta` split as `(d cl / d alpha, cl at zero alpha, cl_max, y)` from
+    /// the two responses; `None` where the chord is zero (a pointed tip).
+    pub fn cl_parts(
+        &self,
+        per_alpha: &[f64],
+        at_zero: &[f64],
+        theta: f64,
+        ratios: &mut [f64],
+    ) -> Option<(f64, f64, f64, f64)> {
+        let y = self.map.y(theta);
+        let section = self.wing.section_at(y);
+        if section.chord <= 1e-9 {
+            return None;
+        }
+        let [(slope, _), (zero, _)] = series_pair_at(per_alpha, at_zero, theta, ratios);
+        let scale = 8.0 * self.map.half_span / section.chord;
+        Some((scale * slope, scale * zero, section.airfoil.cl_max, y))
     }
 }

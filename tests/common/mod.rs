@@ -60,14 +60,7 @@ pub fn rectangular(aspect_ratio: f64) -> Wing {
 /// right-half collocation points of an `n`-term solve, the root and the tip, so the solver sees
 /// the exact elliptic chord at every collocation point.
 pub fn elliptic_at_collocation(c0: f64, n: usize) -> Wing {
-    let mut ys: Vec<f64> = (1..=n)
-        .map(|k| -(k as f64 * std::f64::consts::PI / (n as f64 + 1.0)).cos())
-        .filter(|y| *y > 1e-12)
-        .collect();
-    ys.push(0.0);
-    ys.push(1.0);
-    ys.sort_by(f64::total_cmp);
-    let stations = ys
+    let stations = collocation_ys(n)
         .into_iter()
         .map(|y| station(y, c0 * (1.0 - y * y).max(0.0).sqrt(), 0.0))
         .collect();
@@ -91,4 +84,40 @@ pub fn at_alpha(alpha_deg: f64) -> Condition {
         alpha_deg,
         ..Condition::default()
     }
+}
+
+/// Right-half collocation stations (y on a span of 2) of an `n`-term solve, with the root and
+/// the tip, so a planform or twist defined by a formula is exact at every collocation point.
+pub fn collocation_ys(n: usize) -> Vec<f64> {
+    let mut ys: Vec<f64> = (1..=n)
+        .map(|k| -(k as f64 * std::f64::consts::PI / (n as f64 + 1.0)).cos())
+        .filter(|y| *y > 1e-12)
+        .collect();
+    ys.push(0.0);
+    ys.push(1.0);
+    ys.sort_by(f64::total_cmp);
+    ys
+}
+
+pub fn solve(wing: &Wing, alpha_deg: f64) -> gammaline::solver::Solution {
+    gammaline::solver::solve(
+        wing,
+        &at_alpha(alpha_deg),
+        gammaline::solver::Options::default(),
+    )
+    .expect("the test wing solves")
+}
+
+pub fn solve_n(wing: &Wing, alpha_deg: f64, terms: usize) -> gammaline::solver::Solution {
+    gammaline::solver::solve(
+        wing,
+        &at_alpha(alpha_deg),
+        gammaline::solver::Options { terms },
+    )
+    .expect("the test wing solves")
+}
+
+/// Relative difference |a - b| / |b|.
+pub fn rel(a: f64, b: f64) -> f64 {
+    (a - b).abs() / b.abs()
 }
