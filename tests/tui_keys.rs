@@ -295,7 +295,7 @@ fn help_lists_every_binding_and_the_cautions() {
     let screen = tui_support::text(&draw(&app, 100, 40));
     assert!(screen.contains("preliminary design estimates"), "{screen}");
     assert!(screen.contains("airworthiness"));
-    let all: String = gammaline::tui::view::help::lines()
+    let all: String = gammaline::tui::view::help::lines(200)
         .into_iter()
         .map(|l| l.0 + "\n")
         .collect();

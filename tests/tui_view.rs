@@ -99,7 +99,10 @@ fn plots_show_ranges_axis_ends_and_the_cl_max_line() {
     let rows = lines(&buf);
     let text = rows.join("\n");
     assert!(text.contains("span load c*cl/c_mean"), "{text}");
-    assert!(text.contains("alpha_i deg  min"));
+    assert!(
+        text.contains("alpha_i deg") && text.contains("min "),
+        "{text}"
+    );
     assert!(text.contains("cl/cl_max"));
     let axis = rows
         .iter()

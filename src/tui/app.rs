@@ -3,6 +3,7 @@
 use std::path::{Path, PathBuf};
 
 use crossterm::event::{KeyEvent, KeyEventKind};
+use ratatui::layout::Size;
 
 use super::cells::{self, Field, NewRow, Sheet};
 use super::doc::{Cursor, Doc};
@@ -106,6 +107,8 @@ pub struct App {
     pub quit: bool,
     /// Set by every action; the event loop saves the session after a short quiet time.
     pub session_changed: bool,
+    /// The terminal's size, kept up to date by the event loop (scrolling needs it).
+    pub size: Size,
 }
 
 impl App {
@@ -128,6 +131,7 @@ impl App {
             outbox: Vec::new(),
             quit: false,
             session_changed: false,
+            size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
         }
     }
 
@@ -189,16 +193,7 @@ impl App {
                 _ => {}
             },
             ModeKind::Picker => self.picker(action),
-            ModeKind::Help => match (action, &mut self.mode) {
-                (Action::Cancel, _) => self.mode = Mode::Normal,
-                (Action::Move(Dir::Down), Mode::Help { scroll }) => {
-                    *scroll = scroll.saturating_add(1)
-                }
-                (Action::Move(Dir::Up), Mode::Help { scroll }) => {
-                    *scroll = scroll.saturating_sub(1)
-                }
-                _ => {}
-            },
+            ModeKind::Help => self.help(action),
             ModeKind::Confirm => match action {
                 Action::QuitNow => self.quit = true,
                 Action::Cancel => self.mode = Mode::Normal,
@@ -207,9 +202,48 @@ impl App {
         }
     }
 
+    /// Scrolls the help, never past its last line (so Up answers at once after a long Down).
+    fn help(&mut self, action: Action) {
+        let max = super::view::help::max_scroll(self.size);
+        let page = i32::from(self.size.height.saturating_sub(3).max(1));
+        let Mode::Help { scroll } = &mut self.mode else {
+            return;
+        };
+        let by = match action {
+            Action::Cancel => {
+                self.mode = Mode::Normal;
+                return;
+            }
+            Action::Move(Dir::Down) => 1,
+            Action::Move(Dir::Up) => -1,
+            Action::Page(true) => page,
+            Action::Page(false) => -page,
+            Action::Top => -i32::from(max),
+            Action::Bottom => i32::from(max),
+            _ => 0,
+        };
+        let next = (i32::from(*scroll) + by).clamp(0, i32::from(max));
+        *scroll = u16::try_from(next).unwrap_or(0);
+    }
+
+    /// Rows a page key moves in the table: about half the screen.
+    fn page_rows(&self) -> usize {
+        usize::from(self.size.height / 2).max(1)
+    }
+
     fn normal(&mut self, action: Action) {
         match action {
             Action::Move(dir) => self.move_cursor(dir),
+            Action::Page(down) => {
+                let rows = self.page_rows();
+                let c = &mut self.doc_mut().cursor;
+                c.row = if down {
+                    c.row + rows
+                } else {
+                    c.row.saturating_sub(rows)
+                };
+                self.clamp_cursor();
+            }
             Action::Top => self.doc_mut().cursor.row = 0,
             Action::Bottom => {
                 let d = self.doc();

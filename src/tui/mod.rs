@@ -164,6 +164,7 @@ fn notebook_path(
 
 fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
     let mut first_change: Option<Instant> = None;
+    app.size = guard.terminal.size()?;
     loop {
         guard
             .terminal
@@ -198,7 +199,9 @@ fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
 }
 
 fn handle(app: &mut App, event: Event) {
-    if let Event::Key(key) = event {
-        app.handle_key(key);
+    match event {
+        Event::Key(key) => app.handle_key(key),
+        Event::Resize(width, height) => app.size = ratatui::layout::Size::new(width, height),
+        _ => {}
     }
 }

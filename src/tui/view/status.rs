@@ -5,6 +5,7 @@ use ratatui::layout::Rect;
 use ratatui::widgets::Widget;
 
 use super::put;
+use super::wrap::{fit_paths, wrap};
 use crate::tui::app::{App, Mode};
 use crate::tui::editor::Purpose;
 use crate::tui::keymap;
@@ -40,7 +41,36 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         _ => {}
     }
     let style = if app.status.error { t.invalid } else { t.text };
-    put(buf, area.x, area.y, area.width, &app.status.text, style);
+    for (i, line) in message_lines(app, area.width).iter().enumerate() {
+        let y = area.y + u16::try_from(i).unwrap_or(u16::MAX);
+        if y < area.bottom() {
+            put(buf, area.x, y, area.width, line, style);
+        }
+    }
+}
+
+/// The status message fitted to `width`: paths in it shortened from the left first; a
+/// message still too long wraps onto a second line (which the footer gives up).
+#[must_use]
+pub fn message_lines(app: &App, width: u16) -> Vec<String> {
+    let ellipsis = app.theme.glyphs.ellipsis;
+    let width = usize::from(width);
+    let fitted = fit_paths(&app.status.text, width, ellipsis);
+    if fitted.chars().count() <= width {
+        return vec![fitted];
+    }
+    let mut lines = wrap(&fitted, width);
+    lines.truncate(2);
+    lines
+}
+
+/// Rows the status line needs: two while a long message is shown in normal mode.
+#[must_use]
+pub fn height(app: &App, width: u16) -> u16 {
+    match app.mode {
+        Mode::Normal => u16::try_from(message_lines(app, width).len()).unwrap_or(1),
+        _ => 1,
+    }
 }
 
 /// Draws the footer: the few keys that matter in the current mode.
