@@ -94,9 +94,9 @@ fn plot_headings_keep_min_max_and_axis_ends_at_every_width() {
         }
         let axis = rows
             .iter()
-            .find(|r| r.contains("-5.00 m"))
+            .find(|r| r.contains("│y m -5.00"))
             .unwrap_or_else(|| panic!("axis at {width}"));
-        assert!(axis.contains(" 5.00 m│"), "{axis}");
+        assert!(axis.contains(" 5.00│"), "{axis}");
     }
 }
 
@@ -199,4 +199,30 @@ fn table_columns_are_whole_and_the_border_intact() {
     let rows = lines(&draw(&app, 80, 24));
     assert!(rows[2].contains("of 7"), "{}", rows[2]);
     assert!(rows[3].contains("cd2"), "{}", rows[3]);
+}
+
+#[test]
+fn the_stall_marker_never_hides_an_axis_end() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut wing = tapered();
+    // Nose-up tip and a weak tip section: the first stall is at the tip.
+    wing.stations[2].twist_deg = 4.0;
+    wing.airfoils.get_mut("tip").expect("tip").cl_max = 0.9;
+    let app = tui_support::app_with(
+        wing,
+        gammaline::tui::theme::Theme::monochrome(gammaline::tui::theme::UNICODE),
+        dir.path(),
+    );
+    let s = app.doc().solved.as_ref().expect("solves");
+    assert!(s.first_stall.expect("stalls").y > 4.0, "stall near the right tip");
+    for width in 80..=120 {
+        let rows = lines(&draw(&app, width, 24));
+        let axis = rows
+            .iter()
+            .find(|r| r.contains("│y m -5.00"))
+            .unwrap_or_else(|| panic!("axis at {width}:\n{}", rows.join("\n")));
+        assert!(axis.contains('▲'), "{axis}");
+        let numbers = axis.replace('▲', " ");
+        assert!(numbers.contains(" 5.00"), "right end readable at {width}: {axis}");
+    }
 }

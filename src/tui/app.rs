@@ -5,11 +5,12 @@ use std::path::{Path, PathBuf};
 use crossterm::event::{KeyEvent, KeyEventKind};
 use ratatui::layout::Size;
 
-use super::cells::{self, Field, NewRow, Sheet};
+use super::cells::{self, Field, Sheet};
 use super::doc::{Cursor, Doc};
 use super::editor::{Editor, Purpose};
 use super::keymap::{self, Action, Dir, ModeKind};
 use super::picker::{self, Picker};
+use super::rows::{self, NewRow};
 use super::theme::Theme;
 use crate::solver::{Options, Solution};
 use crate::text::inert;
@@ -342,7 +343,11 @@ impl App {
         }
         let text = cells::edit_text(&self.doc().wing, row, field);
         let purpose = Purpose::Cell { sheet, row, field };
-        self.mode = Mode::Edit(Box::new(Editor::new(purpose, &text, self.theme.selected)));
+        self.mode = Mode::Edit(Box::new(Editor::for_cell(
+            purpose,
+            &text,
+            self.theme.selected,
+        )));
     }
 
     fn commit_edit(&mut self) {
@@ -350,6 +355,11 @@ impl App {
             return;
         };
         let (purpose, text) = (editor.purpose, editor.text());
+        if matches!(purpose, Purpose::Cell { .. }) && !editor.changed() {
+            // Enter on an untouched cell changes nothing (not even the last digit).
+            self.mode = Mode::Normal;
+            return;
+        }
         let outcome = match purpose {
             Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
             Purpose::Open => super::actions::open(self, Path::new(text.trim())),
@@ -430,7 +440,7 @@ impl App {
     fn add_row(&mut self, how: NewRow) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        let Some(new_row) = cells::add_row(&mut wing, sheet, row, how) else {
+        let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
             self.say(&format!("cannot add a row to {}", sheet.name()), true);
             return;
         };
@@ -448,8 +458,8 @@ impl App {
     fn delete_row(&mut self) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        if !cells::remove_row(&mut wing, sheet, row) {
-            self.say(&format!("nothing to delete in {}", sheet.name()), true);
+        if let Err(reason) = rows::remove_row(&mut wing, sheet, row) {
+            self.say(&reason, true);
             return;
         }
         let result = self.accept(wing);
@@ -491,13 +501,15 @@ impl App {
     fn toggle_target(&mut self) {
         let d = self.doc();
         let mut wing = d.wing.clone();
+        // Rounded to what the bar shows, so the switched value reads as typed.
+        let round = |v: f64, unit: f64| (v / unit).round() * unit;
         match (wing.condition.target_cl, &d.solved) {
             (Some(_), Ok(s)) => {
-                wing.condition.alpha_deg = s.coefficients.alpha_deg;
+                wing.condition.alpha_deg = round(s.coefficients.alpha_deg, 0.01);
                 wing.condition.target_cl = None;
             }
             (Some(_), Err(_)) => wing.condition.target_cl = None,
-            (None, Ok(s)) => wing.condition.target_cl = Some(s.coefficients.cl),
+            (None, Ok(s)) => wing.condition.target_cl = Some(round(s.coefficients.cl, 0.001)),
             (None, Err(_)) => wing.condition.target_cl = Some(0.0),
         }
         let result = self.accept(wing);

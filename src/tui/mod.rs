@@ -13,6 +13,7 @@ pub mod editor;
 pub mod keymap;
 pub mod persist;
 pub mod picker;
+pub mod rows;
 pub mod starter;
 pub mod terminal;
 pub mod theme;

@@ -272,29 +272,35 @@ fn curve(
     y + rows
 }
 
-/// The y axis: its ends, the root, and the first station to stall.
+/// The y axis: its ends (unit in the label column) and the first station to stall. When
+/// the stall marker falls on an end's number, the number steps aside so both stay readable.
 fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf: &mut Buffer) {
     let width = inner.width - LABEL;
-    let left = format!("{} m", short(y0));
-    let right = format!("{} m", short(y1));
     let x0 = inner.x + LABEL;
-    put(buf, inner.x, y, LABEL, "y", app.theme.dim);
-    put(buf, x0, y, width, &left, app.theme.dim);
-    let rlen = u16::try_from(right.chars().count()).unwrap_or(0);
-    put(
-        buf,
-        (x0 + width).saturating_sub(rlen),
-        y,
-        rlen,
-        &right,
-        app.theme.dim,
-    );
-    if let Some(stall) = s.first_stall {
+    put(buf, inner.x, y, LABEL, "y m", app.theme.dim);
+    let stall = s.first_stall.and_then(|stall| {
         let t = (stall.y - y0) / (y1 - y0);
-        if (0.0..=1.0).contains(&t) {
-            let col = ((t * f64::from(width)).floor() as u16).min(width - 1);
-            put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
+        // Saturating cast of a value already clamped to the plot's columns.
+        (0.0..=1.0)
+            .contains(&t)
+            .then(|| ((t * f64::from(width)).floor() as u16).min(width - 1))
+    });
+    let (left, right) = (short(y0), short(y1));
+    let len = |t: &str| u16::try_from(t.chars().count()).unwrap_or(u16::MAX);
+    let mut left_at = 0;
+    let mut right_at = width.saturating_sub(len(&right));
+    if let Some(col) = stall {
+        if col < len(&left) {
+            left_at = col + 1;
         }
+        if col >= right_at {
+            right_at = col.saturating_sub(len(&right));
+        }
+    }
+    put(buf, x0 + left_at, y, width - left_at, &left, app.theme.dim);
+    put(buf, x0 + right_at, y, len(&right), &right, app.theme.dim);
+    if let Some(col) = stall {
+        put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
     }
 }
 
