@@ -214,7 +214,10 @@ fn the_stall_marker_never_hides_an_axis_end() {
         dir.path(),
     );
     let s = app.doc().solved.as_ref().expect("solves");
-    assert!(s.first_stall.expect("stalls").y > 4.0, "stall near the right tip");
+    assert!(
+        s.first_stall.expect("stalls").y > 4.0,
+        "stall near the right tip"
+    );
     for width in 80..=120 {
         let rows = lines(&draw(&app, width, 24));
         let axis = rows
@@ -223,6 +226,9 @@ fn the_stall_marker_never_hides_an_axis_end() {
             .unwrap_or_else(|| panic!("axis at {width}:\n{}", rows.join("\n")));
         assert!(axis.contains('▲'), "{axis}");
         let numbers = axis.replace('▲', " ");
-        assert!(numbers.contains(" 5.00"), "right end readable at {width}: {axis}");
+        assert!(
+            numbers.contains(" 5.00"),
+            "right end readable at {width}: {axis}"
+        );
     }
 }

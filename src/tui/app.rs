@@ -363,7 +363,14 @@ impl App {
         let outcome = match purpose {
             Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
             Purpose::Open => super::actions::open(self, Path::new(text.trim())),
-            Purpose::SaveAs => super::actions::save_as(self, PathBuf::from(text.trim())),
+            Purpose::SaveAs => {
+                let path = PathBuf::from(text.trim());
+                let asked = inert(&super::actions::replace_question(
+                    &super::actions::expand_home(&path),
+                ));
+                let confirmed = editor.error.as_deref() == Some(asked.as_str());
+                super::actions::save_as(self, path, confirmed)
+            }
             Purpose::Notebook => {
                 self.settings.notebook = PathBuf::from(text.trim());
                 let msg = format!("notebook lines go to {}", self.settings.notebook.display());

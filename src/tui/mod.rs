@@ -95,10 +95,24 @@ pub fn build_app(options: &LaunchOptions) -> App {
     }
     let examples = persist::examples_dir();
     if !options.files.is_empty() {
-        start.docs.retain(doc::Doc::unsaved);
         let opened = persist::open_files(&options.files, solver);
         notices.extend(opened.notices);
+        // The files replace the last session's saved wings; if none opened, the session
+        // stays rather than an empty starter wing.
         if !opened.docs.is_empty() {
+            // The reference stays pinned; its tag follows its wing, or goes with it.
+            if let Some(r) = &mut start.reference {
+                let kept = start.docs.get(r.source).is_some_and(doc::Doc::unsaved);
+                r.source = if kept {
+                    start.docs[..r.source]
+                        .iter()
+                        .filter(|d| d.unsaved())
+                        .count()
+                } else {
+                    usize::MAX
+                };
+            }
+            start.docs.retain(doc::Doc::unsaved);
             start.current = start.docs.len();
         }
         start.docs.extend(opened.docs);
@@ -112,6 +126,13 @@ pub fn build_app(options: &LaunchOptions) -> App {
         }
     }
     notices.extend(std::mem::take(&mut start.notices));
+    let problems = !notices.is_empty();
+    let recovered = start.docs.iter().filter(|d| d.unsaved()).count();
+    if recovered > 0 {
+        notices.push(format!(
+            "restored {recovered} wing(s) with unsaved edits (* in the wing bar)"
+        ));
+    }
     let notebook = notebook_path(options, start.notebook.take(), dir.as_deref(), explicit_dir);
     let settings = Settings {
         options: solver,
@@ -124,16 +145,11 @@ pub fn build_app(options: &LaunchOptions) -> App {
     app.current = start.current.min(app.docs.len() - 1);
     app.reference = start.reference;
     app.clamp_cursor();
-    match notices.first() {
-        Some(first) => {
-            let more = if notices.len() > 1 {
-                format!(" (+{} more)", notices.len() - 1)
-            } else {
-                String::new()
-            };
-            app.say(&format!("{first}{more}"), true);
-        }
-        None => app.say("press ? for the keys", false),
+    if notices.is_empty() {
+        app.say("press ? for the keys", false);
+    } else {
+        // Every notice, so none is lost; the status line wraps onto the footer row.
+        app.say(&notices.join("; "), problems);
     }
     app
 }
