@@ -2,6 +2,7 @@
 
 mod tui_support;
 
+use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
 use gammaline::tui::app::Mode;
 use gammaline::tui::cells::Sheet;
 use gammaline::wing::file;
@@ -145,9 +146,17 @@ fn condition_bar_is_edited_in_place() {
     press(&mut app, "\n");
     assert_eq!(app.doc().wing.condition.alpha_deg, 3.0);
     let cl = app.doc().solved.as_ref().expect("solves").coefficients.cl;
-    // Switch to a target CL: the same CL is kept, now as the target.
+    // Switch to a target CL: the same CL is kept, now as the target, rounded to what the
+    // bar shows so the editor opens on the value the user reads.
     press(&mut app, "t");
-    assert_eq!(app.doc().wing.condition.target_cl, Some(cl));
+    let kept = app.doc().wing.condition.target_cl.expect("target");
+    assert!(
+        (kept - cl).abs() <= 0.0005 && (kept * 1000.0).fract().abs() < 1e-6,
+        "{kept}"
+    );
+    press(&mut app, "\n");
+    assert_eq!(tui_support::editor_text(&app), format!("{kept}"));
+    press(&mut app, "\u{1b}");
     press(&mut app, "+");
     let target = app.doc().wing.condition.target_cl.expect("target");
     let solved = app.doc().solved.as_ref().expect("solves").coefficients.cl;
@@ -295,7 +304,7 @@ fn help_lists_every_binding_and_the_cautions() {
     let screen = tui_support::text(&draw(&app, 100, 40));
     assert!(screen.contains("preliminary design estimates"), "{screen}");
     assert!(screen.contains("airworthiness"));
-    let all: String = gammaline::tui::view::help::lines()
+    let all: String = gammaline::tui::view::help::lines(200)
         .into_iter()
         .map(|l| l.0 + "\n")
         .collect();
@@ -304,4 +313,69 @@ fn help_lists_every_binding_and_the_cautions() {
     }
     press(&mut app, "\u{1b}");
     assert!(matches!(app.mode, Mode::Normal));
+}
+
+#[test]
+fn typing_replaces_the_old_value_and_ctrl_u_clears() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // Chord of station 1: the old value is selected, typing replaces it.
+    press(&mut app, "l\n");
+    assert_eq!(tui_support::editor_text(&app), "1.6");
+    press(&mut app, "1.7\n");
+    assert_eq!(app.doc().wing.stations[0].chord, 1.7);
+    // The arrows keep the old value for changing one digit.
+    app.handle_key(tui_support::key(KeyCode::Enter));
+    app.handle_key(tui_support::key(KeyCode::Left));
+    press(&mut app, "5");
+    assert_eq!(tui_support::editor_text(&app), "1.57");
+    // Ctrl-U clears to the start of the line, as in a shell.
+    app.handle_key(KeyEvent::new(KeyCode::Char('u'), KeyModifiers::CONTROL));
+    assert_eq!(tui_support::editor_text(&app), "7");
+    press(&mut app, "\u{1b}");
+    // Enter on an untouched cell is not an edit: nothing to undo, nothing unsaved.
+    let mut fresh = tui_support::app(dir.path());
+    press(&mut fresh, "l\n\n");
+    assert!(!fresh.doc().unsaved());
+    press(&mut fresh, "u");
+    assert!(fresh.status.error, "{}", fresh.status.text);
+}
+
+#[test]
+fn nudged_values_open_in_the_editor_without_float_noise() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // Twist of station 2 is -1.0; seven small steps of 0.1 land on -0.3.
+    press(&mut app, "jll+++++++\n");
+    assert_eq!(tui_support::editor_text(&app), "-0.3");
+    assert_eq!(gammaline::tui::cells::short_exact(0.1 + 0.2), "0.3");
+    assert_eq!(gammaline::tui::cells::short_exact(0.0375), "0.0375");
+    assert_eq!(gammaline::tui::cells::short_exact(1e-7), "0.0000001");
+}
+
+#[test]
+fn deleting_refuses_clearly_at_two_stations_and_for_used_airfoils() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "jd");
+    assert_eq!(app.doc().wing.stations.len(), 2);
+    press(&mut app, "d");
+    assert_eq!(app.doc().wing.stations.len(), 2);
+    assert!(app.status.error);
+    assert_eq!(
+        app.status.text,
+        "cannot delete: a wing needs at least 2 stations"
+    );
+    press(&mut app, "Gd");
+    assert_eq!(app.doc().wing.stations.len(), 2);
+    // Airfoil `root` is used by station 1.
+    press(&mut app, "\td");
+    assert_eq!(app.doc().wing.airfoils.len(), 2);
+    assert!(app
+        .status
+        .text
+        .starts_with("cannot delete airfoil `root`: station 1 uses it"));
+    // Undo brings the deleted station back.
+    press(&mut app, "u");
+    assert_eq!(app.doc().wing.stations.len(), 3);
 }

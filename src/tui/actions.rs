@@ -17,7 +17,8 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
     if path.as_os_str().is_empty() {
         return Err("type a path to a wing file".into());
     }
-    let wing = file::read(path).map_err(|e| e.to_string())?;
+    let path = &expand_home(path);
+    let wing = read_wing(path)?;
     app.add_doc(Doc::new(
         wing,
         Some(path.to_path_buf()),
@@ -27,6 +28,24 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
     let msg = format!("opened {}", path.display());
     app.say(&msg, false);
     Ok(())
+}
+
+/// Reads a wing file; a missing file or a folder is said plainly, a broken file by its
+/// first problem.
+///
+/// # Errors
+/// One line naming the path and what is wrong.
+pub fn read_wing(path: &Path) -> Result<crate::wing::Wing, String> {
+    if path.is_dir() {
+        return Err(format!(
+            "{} is a folder: give a wing file's path (w lists the wings nearby)",
+            path.display()
+        ));
+    }
+    if !path.exists() {
+        return Err(format!("no such file: {}", path.display()));
+    }
+    file::read(path).map_err(|e| e.to_string())
 }
 
 /// Saves the current wing to its file; a wing without a file asks for one.
@@ -44,13 +63,52 @@ pub fn save(app: &mut App) {
 ///
 /// # Errors
 /// When the file cannot be written.
-pub fn save_as(app: &mut App, path: PathBuf) -> Result<(), String> {
+pub fn save_as(app: &mut App, path: PathBuf, confirmed: bool) -> Result<(), String> {
     if path.as_os_str().is_empty() {
         return Err("type a path to save to".into());
+    }
+    let path = expand_home(&path);
+    if path.is_dir() {
+        return Err(format!("{} is a folder: add a file name", path.display()));
+    }
+    if let Some(folder) = path.parent().filter(|f| !f.as_os_str().is_empty()) {
+        if !folder.is_dir() {
+            return Err(format!(
+                "cannot save: there is no folder {}",
+                folder.display()
+            ));
+        }
+    }
+    let own = app
+        .doc()
+        .path
+        .as_ref()
+        .is_some_and(|p| super::app::same_file(p, &path));
+    if path.exists() && !own && !confirmed {
+        return Err(replace_question(&path));
     }
     write(app, &path)?;
     app.current_doc_mut().path = Some(path);
     Ok(())
+}
+
+/// What save-as says before replacing another file; Enter again on it confirms.
+#[must_use]
+pub fn replace_question(path: &Path) -> String {
+    format!(
+        "{} exists: Enter again replaces it, Esc keeps it",
+        path.display()
+    )
+}
+
+/// `~/...` made relative to the home folder, as a shell would.
+#[must_use]
+pub fn expand_home(path: &Path) -> PathBuf {
+    let home = std::env::var_os("HOME").filter(|h| !h.is_empty());
+    match (path.strip_prefix("~"), home) {
+        (Ok(rest), Some(home)) => PathBuf::from(home).join(rest),
+        _ => path.to_path_buf(),
+    }
 }
 
 fn write(app: &mut App, path: &Path) -> Result<(), String> {

@@ -3,12 +3,14 @@
 use std::path::{Path, PathBuf};
 
 use crossterm::event::{KeyEvent, KeyEventKind};
+use ratatui::layout::Size;
 
-use super::cells::{self, Field, NewRow, Sheet};
+use super::cells::{self, Field, Sheet};
 use super::doc::{Cursor, Doc};
 use super::editor::{Editor, Purpose};
 use super::keymap::{self, Action, Dir, ModeKind};
 use super::picker::{self, Picker};
+use super::rows::{self, NewRow};
 use super::theme::Theme;
 use crate::solver::{Options, Solution};
 use crate::text::inert;
@@ -106,6 +108,8 @@ pub struct App {
     pub quit: bool,
     /// Set by every action; the event loop saves the session after a short quiet time.
     pub session_changed: bool,
+    /// The terminal's size, kept up to date by the event loop (scrolling needs it).
+    pub size: Size,
 }
 
 impl App {
@@ -128,6 +132,7 @@ impl App {
             outbox: Vec::new(),
             quit: false,
             session_changed: false,
+            size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
         }
     }
 
@@ -189,16 +194,7 @@ impl App {
                 _ => {}
             },
             ModeKind::Picker => self.picker(action),
-            ModeKind::Help => match (action, &mut self.mode) {
-                (Action::Cancel, _) => self.mode = Mode::Normal,
-                (Action::Move(Dir::Down), Mode::Help { scroll }) => {
-                    *scroll = scroll.saturating_add(1)
-                }
-                (Action::Move(Dir::Up), Mode::Help { scroll }) => {
-                    *scroll = scroll.saturating_sub(1)
-                }
-                _ => {}
-            },
+            ModeKind::Help => self.help(action),
             ModeKind::Confirm => match action {
                 Action::QuitNow => self.quit = true,
                 Action::Cancel => self.mode = Mode::Normal,
@@ -207,9 +203,48 @@ impl App {
         }
     }
 
+    /// Scrolls the help, never past its last line (so Up answers at once after a long Down).
+    fn help(&mut self, action: Action) {
+        let max = super::view::help::max_scroll(self.size);
+        let page = i32::from(self.size.height.saturating_sub(3).max(1));
+        let Mode::Help { scroll } = &mut self.mode else {
+            return;
+        };
+        let by = match action {
+            Action::Cancel => {
+                self.mode = Mode::Normal;
+                return;
+            }
+            Action::Move(Dir::Down) => 1,
+            Action::Move(Dir::Up) => -1,
+            Action::Page(true) => page,
+            Action::Page(false) => -page,
+            Action::Top => -i32::from(max),
+            Action::Bottom => i32::from(max),
+            _ => 0,
+        };
+        let next = (i32::from(*scroll) + by).clamp(0, i32::from(max));
+        *scroll = u16::try_from(next).unwrap_or(0);
+    }
+
+    /// Rows a page key moves in the table: about half the screen.
+    fn page_rows(&self) -> usize {
+        usize::from(self.size.height / 2).max(1)
+    }
+
     fn normal(&mut self, action: Action) {
         match action {
             Action::Move(dir) => self.move_cursor(dir),
+            Action::Page(down) => {
+                let rows = self.page_rows();
+                let c = &mut self.doc_mut().cursor;
+                c.row = if down {
+                    c.row + rows
+                } else {
+                    c.row.saturating_sub(rows)
+                };
+                self.clamp_cursor();
+            }
             Action::Top => self.doc_mut().cursor.row = 0,
             Action::Bottom => {
                 let d = self.doc();
@@ -308,7 +343,11 @@ impl App {
         }
         let text = cells::edit_text(&self.doc().wing, row, field);
         let purpose = Purpose::Cell { sheet, row, field };
-        self.mode = Mode::Edit(Box::new(Editor::new(purpose, &text, self.theme.selected)));
+        self.mode = Mode::Edit(Box::new(Editor::for_cell(
+            purpose,
+            &text,
+            self.theme.selected,
+        )));
     }
 
     fn commit_edit(&mut self) {
@@ -316,10 +355,22 @@ impl App {
             return;
         };
         let (purpose, text) = (editor.purpose, editor.text());
+        if matches!(purpose, Purpose::Cell { .. }) && !editor.changed() {
+            // Enter on an untouched cell changes nothing (not even the last digit).
+            self.mode = Mode::Normal;
+            return;
+        }
         let outcome = match purpose {
             Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
             Purpose::Open => super::actions::open(self, Path::new(text.trim())),
-            Purpose::SaveAs => super::actions::save_as(self, PathBuf::from(text.trim())),
+            Purpose::SaveAs => {
+                let path = PathBuf::from(text.trim());
+                let asked = inert(&super::actions::replace_question(
+                    &super::actions::expand_home(&path),
+                ));
+                let confirmed = editor.error.as_deref() == Some(asked.as_str());
+                super::actions::save_as(self, path, confirmed)
+            }
             Purpose::Notebook => {
                 self.settings.notebook = PathBuf::from(text.trim());
                 let msg = format!("notebook lines go to {}", self.settings.notebook.display());
@@ -396,7 +447,7 @@ impl App {
     fn add_row(&mut self, how: NewRow) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        let Some(new_row) = cells::add_row(&mut wing, sheet, row, how) else {
+        let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
             self.say(&format!("cannot add a row to {}", sheet.name()), true);
             return;
         };
@@ -414,8 +465,8 @@ impl App {
     fn delete_row(&mut self) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        if !cells::remove_row(&mut wing, sheet, row) {
-            self.say(&format!("nothing to delete in {}", sheet.name()), true);
+        if let Err(reason) = rows::remove_row(&mut wing, sheet, row) {
+            self.say(&reason, true);
             return;
         }
         let result = self.accept(wing);
@@ -457,13 +508,15 @@ impl App {
     fn toggle_target(&mut self) {
         let d = self.doc();
         let mut wing = d.wing.clone();
+        // Rounded to what the bar shows, so the switched value reads as typed.
+        let round = |v: f64, unit: f64| (v / unit).round() * unit;
         match (wing.condition.target_cl, &d.solved) {
             (Some(_), Ok(s)) => {
-                wing.condition.alpha_deg = s.coefficients.alpha_deg;
+                wing.condition.alpha_deg = round(s.coefficients.alpha_deg, 0.01);
                 wing.condition.target_cl = None;
             }
             (Some(_), Err(_)) => wing.condition.target_cl = None,
-            (None, Ok(s)) => wing.condition.target_cl = Some(s.coefficients.cl),
+            (None, Ok(s)) => wing.condition.target_cl = Some(round(s.coefficients.cl, 0.001)),
             (None, Err(_)) => wing.condition.target_cl = Some(0.0),
         }
         let result = self.accept(wing);

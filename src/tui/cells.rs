@@ -1,7 +1,7 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
-use crate::wing::{Airfoil, Control, ControlKind, Station, Wing};
+use crate::wing::{ControlKind, Wing};
 
 /// A pane of cells.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -319,7 +319,21 @@ pub fn edit_text(wing: &Wing, row: usize, field: Field) -> String {
     if field.is_text() {
         return text_value(wing, row, field).unwrap_or_default();
     }
-    number(wing, row, field).map_or_else(String::new, |v| format!("{v}"))
+    number(wing, row, field).map_or_else(String::new, short_exact)
+}
+
+/// The shortest decimal that reads back as `v` to ten significant digits, so the editor
+/// opens on `0.3`, not `0.30000000000000004`, and on `0.5191`, not sixteen digits.
+#[must_use]
+pub fn short_exact(v: f64) -> String {
+    let close = |t: &str| {
+        t.parse::<f64>()
+            .is_ok_and(|r| (r - v).abs() <= 1e-10 * v.abs().max(f64::MIN_POSITIVE))
+    };
+    (0..=12)
+        .map(|p| format!("{v:.p$}"))
+        .find(|t| close(t))
+        .unwrap_or_else(|| format!("{v}"))
 }
 
 fn parse_number(input: &str) -> Result<f64, String> {
@@ -491,99 +505,4 @@ fn cycle_airfoil(wing: &mut Wing, row: usize, steps: i32) -> bool {
     let next = (i64::try_from(i).unwrap_or(0) + i64::from(steps.signum())).rem_euclid(n);
     s.airfoil = keys[usize::try_from(next).unwrap_or(0)].clone();
     true
-}
-
-/// How a new row is made.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum NewRow {
-    /// Interpolated halfway between the selected station and the next one.
-    Insert,
-    /// A copy of the selected row (for a station: its values, placed halfway to a neighbour).
-    Duplicate,
-}
-
-/// Adds a row after `row`; returns the new row's index, or `None` when the sheet has no rows
-/// to add to.
-pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option<usize> {
-    match sheet {
-        Sheet::Stations => add_station(wing, row, how),
-        Sheet::Airfoils => {
-            let key = airfoil_key(wing, row)?.to_string();
-            let airfoil: Airfoil = wing.airfoils.get(&key).copied().unwrap_or_default();
-            let new_key = (2..)
-                .map(|n| format!("{key}-{n}"))
-                .find(|k| !wing.airfoils.contains_key(k))?;
-            wing.airfoils.insert(new_key.clone(), airfoil);
-            wing.airfoils.keys().position(|k| *k == new_key)
-        }
-        Sheet::Controls => {
-            let control = match (how, wing.controls.get(row)) {
-                (NewRow::Duplicate, Some(c)) => c.clone(),
-                _ => default_control(wing),
-            };
-            let at = (row + 1).min(wing.controls.len());
-            wing.controls.insert(at, control);
-            Some(at)
-        }
-        Sheet::Condition => None,
-    }
-}
-
-fn default_control(wing: &Wing) -> Control {
-    let tip = wing.span_ends().1.max(0.0);
-    Control {
-        name: format!("control {}", wing.controls.len() + 1),
-        kind: ControlKind::Aileron,
-        y_inner: 0.6 * tip,
-        y_outer: 0.95 * tip,
-        chord_fraction: 0.25,
-        deflection_deg: 0.0,
-        effectiveness: None,
-    }
-}
-
-fn add_station(wing: &mut Wing, row: usize, how: NewRow) -> Option<usize> {
-    let n = wing.stations.len();
-    if n < 2 {
-        return None;
-    }
-    // Between `row` and the next; the tip station pairs with the one inboard of it.
-    let a = row.min(n - 2);
-    let (p, q) = (&wing.stations[a], &wing.stations[a + 1]);
-    let mid = |u: f64, v: f64| 0.5 * (u + v);
-    let station = match how {
-        NewRow::Insert => Station {
-            y: mid(p.y, q.y),
-            chord: mid(p.chord, q.chord),
-            twist_deg: mid(p.twist_deg, q.twist_deg),
-            airfoil: p.airfoil.clone(),
-            x_le: mid(p.x_le, q.x_le),
-            z: mid(p.z, q.z),
-        },
-        NewRow::Duplicate => Station {
-            y: mid(p.y, q.y),
-            ..wing.stations[row.min(n - 1)].clone()
-        },
-    };
-    wing.stations.insert(a + 1, station);
-    Some(a + 1)
-}
-
-/// Removes a row; returns false when there is nothing to remove.
-pub fn remove_row(wing: &mut Wing, sheet: Sheet, row: usize) -> bool {
-    match sheet {
-        Sheet::Stations if row < wing.stations.len() => {
-            wing.stations.remove(row);
-            true
-        }
-        Sheet::Airfoils => match airfoil_key(wing, row).map(str::to_string) {
-            Some(key) => wing.airfoils.remove(&key).is_some(),
-            None => false,
-        },
-        Sheet::Controls if row < wing.controls.len() => {
-            wing.controls.remove(row);
-            true
-        }
-        _ => false,
-    }
 }

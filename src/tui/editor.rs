@@ -1,7 +1,7 @@
 //! The single-line editor used for cells and for the path prompts.
 
-use crossterm::event::KeyEvent;
-use ratatui::style::Style;
+use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
+use ratatui::style::{Modifier, Style};
 use tui_textarea::{CursorMove, TextArea};
 
 use super::cells::{Field, Sheet};
@@ -48,6 +48,8 @@ pub struct Editor {
     pub area: TextArea<'static>,
     /// Why the last attempt to commit was refused; shown in the cell and the status line.
     pub error: Option<String>,
+    /// The text the editor opened with.
+    original: String,
 }
 
 impl Editor {
@@ -62,7 +64,29 @@ impl Editor {
             purpose,
             area,
             error: None,
+            original: text.to_string(),
         }
+    }
+
+    /// An editor for a cell: the old value is selected, so typing replaces it, Backspace
+    /// clears it and the arrows keep it for changing a digit.
+    #[must_use]
+    pub fn for_cell(purpose: Purpose, text: &str, style: Style) -> Self {
+        let mut editor = Self::new(purpose, text, style);
+        // Marked by modifiers, not colour, so it shows under NO_COLOR too.
+        editor.area.set_selection_style(
+            Style::new()
+                .remove_modifier(Modifier::REVERSED)
+                .add_modifier(Modifier::UNDERLINED | Modifier::BOLD),
+        );
+        editor.area.select_all();
+        editor
+    }
+
+    /// Whether the text differs from what the editor opened with.
+    #[must_use]
+    pub fn changed(&self) -> bool {
+        self.text() != self.original
     }
 
     /// The text typed so far (one line: Enter never reaches the text area).
@@ -73,7 +97,14 @@ impl Editor {
 
     /// Passes a key to the text area; a change clears the last error.
     pub fn input(&mut self, key: KeyEvent) {
-        if self.area.input(key) {
+        // Ctrl-U clears to the start, as in a shell line (the text area would undo).
+        let changed = if key.code == KeyCode::Char('u') && key.modifiers == KeyModifiers::CONTROL {
+            self.area.cancel_selection();
+            self.area.delete_line_by_head()
+        } else {
+            self.area.input(key)
+        };
+        if changed {
             self.error = None;
         }
     }

@@ -59,6 +59,8 @@ pub enum Dir {
 pub enum Action {
     /// Move the cursor (or the picker selection).
     Move(Dir),
+    /// Down (true) or up a page.
+    Page(bool),
     /// First row of the pane.
     Top,
     /// Last row of the pane.
@@ -248,14 +250,28 @@ pub const BINDINGS: &[Binding] = &[
         None,
     ),
     bind(
-        &[Normal],
+        &[Normal, Help],
+        &[code(KeyCode::PageDown), ctrl('d')],
+        Action::Page(true),
+        "down a page",
+        None,
+    ),
+    bind(
+        &[Normal, Help],
+        &[code(KeyCode::PageUp), ctrl('u')],
+        Action::Page(false),
+        "up a page",
+        None,
+    ),
+    bind(
+        &[Normal, Help],
         &[k('g'), code(KeyCode::Home)],
         Action::Top,
         "first row",
         None,
     ),
     bind(
-        &[Normal],
+        &[Normal, Help],
         &[k('G'), code(KeyCode::End)],
         Action::Bottom,
         "last row",

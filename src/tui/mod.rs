@@ -13,6 +13,7 @@ pub mod editor;
 pub mod keymap;
 pub mod persist;
 pub mod picker;
+pub mod rows;
 pub mod starter;
 pub mod terminal;
 pub mod theme;
@@ -94,10 +95,24 @@ pub fn build_app(options: &LaunchOptions) -> App {
     }
     let examples = persist::examples_dir();
     if !options.files.is_empty() {
-        start.docs.retain(doc::Doc::unsaved);
         let opened = persist::open_files(&options.files, solver);
         notices.extend(opened.notices);
+        // The files replace the last session's saved wings; if none opened, the session
+        // stays rather than an empty starter wing.
         if !opened.docs.is_empty() {
+            // The reference stays pinned; its tag follows its wing, or goes with it.
+            if let Some(r) = &mut start.reference {
+                let kept = start.docs.get(r.source).is_some_and(doc::Doc::unsaved);
+                r.source = if kept {
+                    start.docs[..r.source]
+                        .iter()
+                        .filter(|d| d.unsaved())
+                        .count()
+                } else {
+                    usize::MAX
+                };
+            }
+            start.docs.retain(doc::Doc::unsaved);
             start.current = start.docs.len();
         }
         start.docs.extend(opened.docs);
@@ -111,6 +126,13 @@ pub fn build_app(options: &LaunchOptions) -> App {
         }
     }
     notices.extend(std::mem::take(&mut start.notices));
+    let problems = !notices.is_empty();
+    let recovered = start.docs.iter().filter(|d| d.unsaved()).count();
+    if recovered > 0 {
+        notices.push(format!(
+            "restored {recovered} wing(s) with unsaved edits (* in the wing bar)"
+        ));
+    }
     let notebook = notebook_path(options, start.notebook.take(), dir.as_deref(), explicit_dir);
     let settings = Settings {
         options: solver,
@@ -123,16 +145,11 @@ pub fn build_app(options: &LaunchOptions) -> App {
     app.current = start.current.min(app.docs.len() - 1);
     app.reference = start.reference;
     app.clamp_cursor();
-    match notices.first() {
-        Some(first) => {
-            let more = if notices.len() > 1 {
-                format!(" (+{} more)", notices.len() - 1)
-            } else {
-                String::new()
-            };
-            app.say(&format!("{first}{more}"), true);
-        }
-        None => app.say("press ? for the keys", false),
+    if notices.is_empty() {
+        app.say("press ? for the keys", false);
+    } else {
+        // Every notice, so none is lost; the status line wraps onto the footer row.
+        app.say(&notices.join("; "), problems);
     }
     app
 }
@@ -164,6 +181,7 @@ fn notebook_path(
 
 fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
     let mut first_change: Option<Instant> = None;
+    app.size = guard.terminal.size()?;
     loop {
         guard
             .terminal
@@ -198,7 +216,9 @@ fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
 }
 
 fn handle(app: &mut App, event: Event) {
-    if let Event::Key(key) = event {
-        app.handle_key(key);
+    match event {
+        Event::Key(key) => app.handle_key(key),
+        Event::Resize(width, height) => app.size = ratatui::layout::Size::new(width, height),
+        _ => {}
     }
 }

@@ -40,9 +40,9 @@ pub fn examples_dir() -> Option<PathBuf> {
 pub fn open_files(files: &[PathBuf], options: Options) -> Start {
     let mut start = Start::default();
     for path in files {
-        match file::read(path) {
+        match super::actions::read_wing(path) {
             Ok(wing) => start.docs.push(Doc::new(wing, Some(path.clone()), options)),
-            Err(e) => start.notices.push(e.to_string()),
+            Err(e) => start.notices.push(e),
         }
     }
     start
@@ -71,22 +71,28 @@ pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
         notebook: session.notebook.clone(),
         ..Start::default()
     };
+    // Where each session wing landed (`None`: it could not be restored).
     let mut index_map = Vec::new();
     for entry in &session.wings {
-        index_map.push(start.docs.len());
-        if let Some(doc) = restore_wing(entry, dir, options, &mut start.notices) {
-            start.docs.push(doc);
-        }
+        let doc = restore_wing(entry, dir, options, &mut start.notices);
+        index_map.push(doc.as_ref().map(|_| start.docs.len()));
+        start.docs.extend(doc);
     }
     start.current = index_map
         .get(session.current)
         .copied()
+        .flatten()
         .unwrap_or(0)
         .min(start.docs.len().saturating_sub(1));
     start.reference = session.reference.as_ref().and_then(|r| {
         let wing = file::parse(&r.wing, Path::new("reference")).ok()?;
         let solved = doc::solve(&wing, options);
-        let source = r.source.min(start.docs.len().saturating_sub(1));
+        // The pinned wing's own tag, or none when that wing is gone.
+        let source = index_map
+            .get(r.source)
+            .copied()
+            .flatten()
+            .unwrap_or(usize::MAX);
         Some(Reference {
             wing,
             solved,

@@ -22,6 +22,12 @@ pub struct Glyphs {
     pub current: &'static str,
     /// Separator between fields in bars.
     pub separator: &'static str,
+    /// Marks text cut short (a path shortened from the left, a long name).
+    pub ellipsis: &'static str,
+    /// Marks a change against the reference in the results strip.
+    pub delta: &'static str,
+    /// Marks the reason an edit was refused.
+    pub refused: &'static str,
 }
 
 /// Unicode box drawing and eighth blocks.
@@ -32,6 +38,9 @@ pub const UNICODE: Glyphs = Glyphs {
     stall: "▲",
     current: "▸",
     separator: "│",
+    ellipsis: "…",
+    delta: "Δ",
+    refused: "✗ ",
 };
 
 /// Seven-bit glyphs for terminals or locales without UTF-8.
@@ -51,6 +60,9 @@ pub const ASCII: Glyphs = Glyphs {
     stall: "^",
     current: ">",
     separator: "|",
+    ellipsis: "...",
+    delta: "d",
+    refused: "! ",
 };
 
 /// Every style the views use, by meaning.

@@ -156,3 +156,11 @@ pub fn shown_cl(buf: &Buffer) -> Option<f64> {
     let at = all.find("CL ")?;
     all[at + 3..].split_whitespace().next()?.parse().ok()
 }
+
+/// The text in the open editor ("" when none is open).
+pub fn editor_text(app: &App) -> String {
+    match &app.mode {
+        gammaline::tui::app::Mode::Edit(e) => e.text(),
+        _ => String::new(),
+    }
+}

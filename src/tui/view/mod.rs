@@ -9,6 +9,7 @@ pub mod sparkline;
 pub mod status;
 pub mod table;
 pub mod wingbar;
+pub mod wrap;
 
 use ratatui::buffer::Buffer;
 use ratatui::layout::{Constraint, Layout, Rect};
@@ -32,13 +33,14 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         too_small(area, buf);
         return;
     }
+    let status_rows = status::height(app, area.width).max(1);
     let [wings, condition, main, strip, status, footer] = Layout::vertical([
         Constraint::Length(1),
         Constraint::Length(1),
         Constraint::Min(8),
         Constraint::Length(results::height(app)),
-        Constraint::Length(1),
-        Constraint::Length(1),
+        Constraint::Length(status_rows),
+        Constraint::Length(u16::from(status_rows == 1)),
     ])
     .areas(area);
     let table_width = table::width(app).min(area.width * 3 / 5);

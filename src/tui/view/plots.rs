@@ -89,7 +89,14 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     let ratio_rows = curves.saturating_sub(per * (n - 1)).max(2);
     let mut y = inner.y;
     let load_range = joint_range(&loads);
-    y = title(app, inner, y, "span load c*cl/c_mean", load_range, buf);
+    y = title(
+        app,
+        inner,
+        y,
+        ["span load c*cl/c_mean", "span load"],
+        load_range,
+        buf,
+    );
     for series in &loads {
         y = curve(app, inner, y, per, series, load_range, None, buf);
     }
@@ -99,7 +106,7 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         style: app.theme.load,
     };
     let ai_range = joint_range(std::slice::from_ref(&ai));
-    y = title(app, inner, y, "alpha_i deg", ai_range, buf);
+    y = title(app, inner, y, ["alpha_i deg", "a_i deg"], ai_range, buf);
     y = curve(app, inner, y, per, &ai, ai_range, None, buf);
     let cr = Series {
         label: "cl/m",
@@ -114,14 +121,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         over: app.theme.stall,
     };
     let rows = ratio_rows.min(inner.bottom().saturating_sub(y + 2)).max(1);
-    y = title(
-        app,
-        inner,
-        y,
-        &format!("cl/cl_max ({}=1)", app.theme.glyphs.limit.repeat(2)),
-        cr_range,
-        buf,
-    );
+    let with_line = format!("cl/cl_max ({}=1)", app.theme.glyphs.limit.repeat(2));
+    y = title(app, inner, y, [&with_line, "cl/cl_max"], cr_range, buf);
     y = curve(app, inner, y, rows, &cr, Some((0.0, top)), Some(limit), buf);
     axis(app, s, inner, y.min(inner.bottom() - 1), (y0, y1), buf);
 }
@@ -165,30 +166,46 @@ fn joint_range(series: &[Series]) -> Option<(f64, f64)> {
     sparkline::range(&all)
 }
 
+/// A plot's heading: its name, then its min and max right-aligned. The longest wording
+/// that fits the width is used, so the numbers are never cut.
 fn title(
     app: &App,
     inner: Rect,
     y: u16,
-    name: &str,
+    names: [&str; 2],
     range: Option<(f64, f64)>,
     buf: &mut Buffer,
 ) -> u16 {
     if y >= inner.bottom() {
         return y;
     }
-    let x = put(buf, inner.x, y, inner.width, name, app.theme.header);
-    if let Some((lo, hi)) = range {
-        let text = format!("  min {} max {}", short(lo), short(hi));
-        put(
-            buf,
-            x,
-            y,
-            inner.right().saturating_sub(x),
-            &text,
-            app.theme.dim,
-        );
-    }
+    let (name, numbers) = heading(names, range, usize::from(inner.width));
+    put(buf, inner.x, y, inner.width, &name, app.theme.header);
+    let len = u16::try_from(numbers.chars().count()).unwrap_or(u16::MAX);
+    let x = inner.right().saturating_sub(len).max(inner.x);
+    put(buf, x, y, inner.right() - x, &numbers, app.theme.dim);
     y + 1
+}
+
+/// The name and the range text for a heading `width` wide: the full name with "min .. max"
+/// where it fits, else the short name, else the short name with "lo..hi", else the range.
+#[must_use]
+pub fn heading(names: [&str; 2], range: Option<(f64, f64)>, width: usize) -> (String, String) {
+    let Some((lo, hi)) = range else {
+        return (names[1].to_string(), String::new());
+    };
+    let long = format!("min {} max {}", short(lo), short(hi));
+    let compact = format!("{}..{}", short(lo), short(hi));
+    let fits =
+        |name: &str, numbers: &str| name.chars().count() + 2 + numbers.chars().count() <= width;
+    for numbers in [&long, &compact] {
+        for name in names {
+            if fits(name, numbers) {
+                return (name.to_string(), numbers.clone());
+            }
+        }
+    }
+    (String::new(), compact)
 }
 
 /// Draws one series `rows` high; the scale starts at zero unless the curve goes negative.
@@ -227,6 +244,21 @@ fn curve(
             lo.min(0.0) + 1.0
         },
     );
+    if let Some(l) = limit {
+        // Name the cl_max line at its row, so it reads even when the heading is short.
+        let at = sparkline::level(l.at, scale.0, scale.1, rows);
+        let row_from_bottom = at.saturating_sub(1) / 8;
+        if at > 0 && row_from_bottom > 0 && row_from_bottom < rows {
+            put(
+                buf,
+                inner.x,
+                y + rows - 1 - row_from_bottom,
+                LABEL,
+                " =1",
+                app.theme.dim,
+            );
+        }
+    }
     let area = Rect::new(inner.x + LABEL, y, inner.width - LABEL, rows);
     sparkline::draw(
         buf,
@@ -240,29 +272,35 @@ fn curve(
     y + rows
 }
 
-/// The y axis: its ends, the root, and the first station to stall.
+/// The y axis: its ends (unit in the label column) and the first station to stall. When
+/// the stall marker falls on an end's number, the number steps aside so both stay readable.
 fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf: &mut Buffer) {
     let width = inner.width - LABEL;
-    let left = format!("{} m", short(y0));
-    let right = format!("{} m", short(y1));
     let x0 = inner.x + LABEL;
-    put(buf, inner.x, y, LABEL, "y", app.theme.dim);
-    put(buf, x0, y, width, &left, app.theme.dim);
-    let rlen = u16::try_from(right.chars().count()).unwrap_or(0);
-    put(
-        buf,
-        (x0 + width).saturating_sub(rlen),
-        y,
-        rlen,
-        &right,
-        app.theme.dim,
-    );
-    if let Some(stall) = s.first_stall {
+    put(buf, inner.x, y, LABEL, "y m", app.theme.dim);
+    let stall = s.first_stall.and_then(|stall| {
         let t = (stall.y - y0) / (y1 - y0);
-        if (0.0..=1.0).contains(&t) {
-            let col = ((t * f64::from(width)).floor() as u16).min(width - 1);
-            put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
+        // Saturating cast of a value already clamped to the plot's columns.
+        (0.0..=1.0)
+            .contains(&t)
+            .then(|| ((t * f64::from(width)).floor() as u16).min(width - 1))
+    });
+    let (left, right) = (short(y0), short(y1));
+    let len = |t: &str| u16::try_from(t.chars().count()).unwrap_or(u16::MAX);
+    let mut left_at = 0;
+    let mut right_at = width.saturating_sub(len(&right));
+    if let Some(col) = stall {
+        if col < len(&left) {
+            left_at = col + 1;
         }
+        if col >= right_at {
+            right_at = col.saturating_sub(len(&right));
+        }
+    }
+    put(buf, x0 + left_at, y, width - left_at, &left, app.theme.dim);
+    put(buf, x0 + right_at, y, len(&right), &right, app.theme.dim);
+    if let Some(col) = stall {
+        put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
     }
 }
 

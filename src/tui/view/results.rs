@@ -112,7 +112,7 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         }
     };
     let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
-    let delta_mark = if t.glyphs.stall == "^" { "d" } else { "Δ" };
+    let delta_mark = t.glyphs.delta;
     let value_rows = area.height - 1;
     let (mut x, mut y) = (area.x, area.y);
     for item in items(s, reference) {

@@ -38,21 +38,30 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     let doc = app.doc();
     let is_focused = focused(app, sheet);
     let rows = cells::rows(&doc.wing, sheet);
-    let title = Line::from(vec![
+    let columns = app.columns(sheet);
+    let room = area.width.saturating_sub(2 + INDEX_WIDTH);
+    let first = first_visible_column(&columns, doc.cursor.col, room);
+    let end = visible_end(&columns, first, room);
+    let mut title = vec![
         Span::styled(format!(" {} ", sheet.name()), app.theme.header),
         Span::styled(
             format!("{}/{} ", (doc.cursor.row + 1).min(rows), rows),
             app.theme.dim,
         ),
-    ]);
-    let outer = block(app, title, is_focused);
+    ];
+    if first > 0 || end < columns.len() {
+        // Say that there are more columns than shown, and which ones these are.
+        title.push(Span::styled(
+            format!("cols {}-{} of {} ", first + 1, end, columns.len()),
+            app.theme.dim,
+        ));
+    }
+    let outer = block(app, Line::from(title), is_focused);
     let inner = outer.inner(area);
     outer.render(area, buf);
-    if inner.width == 0 || inner.height < 2 {
+    if inner.width <= INDEX_WIDTH || inner.height < 2 {
         return;
     }
-    let columns = app.columns(sheet);
-    let first = first_visible_column(&columns, doc.cursor.col, inner.width - INDEX_WIDTH);
     header(app, &columns[first..], inner, buf);
     let body = inner.height - 1;
     let offset = if doc.cursor.row >= usize::from(body) {
@@ -105,6 +114,20 @@ fn first_visible_column(columns: &[Field], cursor: usize, room: u16) -> usize {
     first
 }
 
+/// One past the last column, from `first`, that fits whole in `room` columns.
+fn visible_end(columns: &[Field], first: usize, room: u16) -> usize {
+    let mut used = 0;
+    let mut end = first;
+    for field in columns.iter().skip(first) {
+        used += field.width() + 1;
+        if used > room {
+            break;
+        }
+        end += 1;
+    }
+    end
+}
+
 fn header(app: &App, columns: &[Field], inner: Rect, buf: &mut Buffer) {
     let mut x = put(
         buf,
@@ -115,6 +138,9 @@ fn header(app: &App, columns: &[Field], inner: Rect, buf: &mut Buffer) {
         app.theme.header,
     );
     for field in columns {
+        if x + 1 + field.width() > inner.right() {
+            break;
+        }
         let text = format!(
             " {}",
             fit(field.title(), usize::from(field.width()), !field.is_text())
@@ -145,11 +171,12 @@ fn draw_row(
     let mut x = put(buf, line.x, line.y, INDEX_WIDTH, &index, t.dim);
     for (col, field) in columns.iter().enumerate().skip(first) {
         let w = field.width();
-        x = put(buf, x, line.y, 1, " ", t.text);
-        if x >= line.right() {
+        // A number cut short would read as another number: draw whole columns only.
+        if x + 1 + w > line.right() {
             break;
         }
-        let room = w.min(line.right() - x);
+        x = put(buf, x, line.y, 1, " ", t.text);
+        let room = w;
         let selected = focused(app, sheet) && doc.cursor.row == row && doc.cursor.col == col;
         if selected {
             if let Mode::Edit(editor) = &app.mode {
@@ -196,11 +223,7 @@ fn refusal(app: &App, sheet: Sheet, offset: usize, inner: Rect, buf: &mut Buffer
     } else {
         inner.y + 1
     };
-    let marker = if app.theme.glyphs.stall == "^" {
-        "! "
-    } else {
-        "✗ "
-    };
+    let marker = app.theme.glyphs.refused;
     put(
         buf,
         inner.x,
