@@ -360,3 +360,35 @@ fn first_stall_is_at_the_root_of_a_rectangular_wing_and_moves_out_with_taper() {
     // When that section reaches cl_max, the wing's CL is below the section cl_max.
     assert!(rect.cl_wing < 1.5 && rect.cl_wing > 1.0);
 }
+
+#[test]
+fn a_symmetric_wing_has_no_roll_or_yaw_and_mirroring_flips_both() {
+    // Symmetry (common practice, no source): a mirrored load has no rolling or yawing moment;
+    // reflecting a wing left to right reverses both.
+    let clean = solve(&common::tapered(7.0, 0.5), 5.0).coefficients;
+    assert!(clean.cl_roll.abs() < 1e-12 && clean.cn.abs() < 1e-12);
+    let mut wing = common::tapered(7.0, 0.5);
+    wing.controls.push(common::aileron(0.5, 0.9, 0.25, 7.0));
+    let mut full = wing.clone();
+    full.symmetric = false;
+    let right = wing.stations.clone();
+    let mut stations: Vec<_> = right
+        .iter()
+        .rev()
+        .map(|s| common::station(-s.y, s.chord, 0.0))
+        .collect();
+    stations.extend(right.iter().skip(1).cloned());
+    stations[0].twist_deg = 2.0; // an asymmetric twist on the left tip
+    full.stations = stations;
+    let a = solve(&full, 5.0).coefficients;
+    let b = solve(&full.mirrored(), 5.0).coefficients;
+    assert!(a.cl_roll.abs() > 1e-3);
+    assert!(
+        rel(b.cl_roll, -a.cl_roll) < 1e-9,
+        "{} vs {}",
+        b.cl_roll,
+        a.cl_roll
+    );
+    assert!(rel(b.cn, -a.cn) < 1e-9, "{} vs {}", b.cn, a.cn);
+    assert!(rel(b.cl, a.cl) < 1e-12);
+}
