@@ -94,6 +94,7 @@ pub fn integrate(
     let cells = (per_alpha.len() / 2).max(16);
     let thetas = breakpoints(wing, map, control_edges, cells);
     let mut ratios = vec![0.0; per_alpha.len()];
+    let sections = crate::wing::Sections::of(wing);
     let mut out = LoadIntegrals::default();
     for pair in thetas.windows(2) {
         let (lo, hi) = (pair[0], pair[1]);
@@ -107,7 +108,7 @@ pub fn integrate(
             // c*cl = 4 b sum A_n sin(n theta)
             let ccl = (4.0 * span * g0, 4.0 * span * ga);
             let induced = (i0, ia);
-            let section = wing.section_at(y);
+            let section = sections.at(y);
             add_point(&mut out, w, y, section, ccl, induced, area, span);
         }
     }

@@ -94,10 +94,11 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         half_span: 0.5 * geometry.span,
     };
     let thetas = fourier::collocation_angles(n);
+    let sections = crate::wing::Sections::of(wing);
     let mut mu = Vec::with_capacity(n);
     let mut rhs = Vec::with_capacity(n);
     for &theta in &thetas {
-        let s = wing.section_at(map.y(theta));
+        let s = sections.at(map.y(theta));
         mu.push(4.0 * geometry.span / (s.airfoil.lift_slope * s.chord));
         rhs.push(s.twist - s.airfoil.alpha_zero_lift_deg.to_radians());
     }
@@ -143,7 +144,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
 /// first stall, returned as `(alpha, y)`. Right-half points win ties, so a mirrored wing
 /// reports y >= 0.
 fn critical_section(
-    evaluator: &spanwise::Evaluator<'_>,
+    evaluator: &spanwise::Evaluator,
     thetas: &[f64],
     responses: &fourier::Responses,
 ) -> Option<(f64, f64)> {

@@ -26,22 +26,22 @@ pub struct SpanPoint {
 }
 
 /// Evaluates local values for one wing and speed.
-pub struct Evaluator<'w> {
-    wing: &'w Wing,
+pub struct Evaluator {
     map: SpanMap,
     mean_chord: f64,
     speed: f64,
     controls: Vec<ControlSpan>,
+    sections: crate::wing::Sections,
 }
 
-impl<'w> Evaluator<'w> {
-    pub fn new(wing: &'w Wing, map: SpanMap, mean_chord: f64, speed: f64) -> Self {
+impl Evaluator {
+    pub fn new(wing: &Wing, map: SpanMap, mean_chord: f64, speed: f64) -> Self {
         Self {
-            wing,
             map,
             mean_chord,
             speed,
             controls: super::controls::spans(&wing.controls),
+            sections: crate::wing::Sections::of(wing),
         }
     }
 
@@ -55,7 +55,7 @@ impl<'w> Evaluator<'w> {
     pub fn at_theta(&self, a: &[f64], theta: f64, alpha: f64, ratios: &mut [f64]) -> SpanPoint {
         let (load, induced) = series_at(a, theta, ratios);
         let y = self.map.y(theta);
-        let section = self.wing.section_at(y);
+        let section = self.sections.at(y);
         let span = 2.0 * self.map.half_span;
         let ccl = 4.0 * span * load;
         let cl = if section.chord > 1e-9 {
@@ -93,7 +93,7 @@ impl<'w> Evaluator<'w> {
         ratios: &mut [f64],
     ) -> Option<(f64, f64, f64, f64)> {
         let y = self.map.y(theta);
-        let section = self.wing.section_at(y);
+        let section = self.sections.at(y);
         if section.chord <= 1e-9 {
             return None;
         }
