@@ -21,7 +21,12 @@ pub const G0: f64 = 9.806_65;
 pub const GAMMA: f64 = 1.4;
 
 /// Layer bases: geopotential altitude (m) and temperature lapse rate (K/m) above it.
-const LAYERS: [(f64, f64); 4] = [(0.0, -0.0065), (11_000.0, 0.0), (20_000.0, 0.001), (32_000.0, 0.0028)];
+const LAYERS: [(f64, f64); 4] = [
+    (0.0, -0.0065),
+    (11_000.0, 0.0),
+    (20_000.0, 0.001),
+    (32_000.0, 0.0028),
+];
 
 /// Air properties at one altitude.
 #[derive(Debug, Clone, Copy, PartialEq)]

@@ -122,7 +122,10 @@ pub fn responses(m: DMatrix<f64>, at_zero_rhs: &[f64]) -> Option<Responses> {
     let lu = m.lu();
     let per_alpha = lu.solve(&DVector::from_element(n, 1.0))?;
     let at_zero = lu.solve(&DVector::from_column_slice(at_zero_rhs))?;
-    let finite = per_alpha.iter().chain(at_zero.iter()).all(|v| v.is_finite());
+    let finite = per_alpha
+        .iter()
+        .chain(at_zero.iter())
+        .all(|v| v.is_finite());
     finite.then(|| Responses {
         per_alpha: per_alpha.as_slice().to_vec(),
         at_zero: at_zero.as_slice().to_vec(),

@@ -115,7 +115,10 @@ pub fn integrate(
     out
 }
 
-#[expect(clippy::too_many_arguments, reason = "one quadrature point's worth of data")]
+#[expect(
+    clippy::too_many_arguments,
+    reason = "one quadrature point's worth of data"
+)]
 fn add_point(
     out: &mut LoadIntegrals,
     w: f64,
@@ -136,12 +139,16 @@ fn add_point(
     if c > 0.0 {
         profile.add_product(f.cd2 / c, ccl, ccl);
     }
-    for (target, scale) in [(&mut out.cdp, w / area), (&mut out.cn_profile, w * y / (area * span))] {
+    for (target, scale) in [
+        (&mut out.cdp, w / area),
+        (&mut out.cn_profile, w * y / (area * span)),
+    ] {
         target.p0 += scale * profile.p0;
         target.p1 += scale * profile.p1;
         target.p2 += scale * profile.p2;
     }
-    out.cn_induced.add_product(w * y / (area * span), ccl, induced);
+    out.cn_induced
+        .add_product(w * y / (area * span), ccl, induced);
     out.cdi.add_product(w / area, ccl, induced);
     if y >= 0.0 {
         out.right_moment.add_product(w * y, ccl, (1.0, 0.0));

@@ -105,7 +105,10 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     }
     let responses =
         fourier::responses(fourier::matrix(&thetas, &mu), &rhs).ok_or(SolveError::Singular)?;
-    let edges: Vec<f64> = control_spans.iter().flat_map(|s| [s.y_from, s.y_to]).collect();
+    let edges: Vec<f64> = control_spans
+        .iter()
+        .flat_map(|s| [s.y_from, s.y_to])
+        .collect();
     let integrals = integrals::integrate(
         wing,
         map,

@@ -107,7 +107,10 @@ impl<'a> Locator<'a> {
                 controls += 1;
                 Some(format!("control {controls}"))
             } else if let Some(rest) = t.strip_prefix("[airfoil.") {
-                Some(format!("airfoil {}", rest.split(']').next().unwrap_or("").trim()))
+                Some(format!(
+                    "airfoil {}",
+                    rest.split(']').next().unwrap_or("").trim()
+                ))
             } else if t.starts_with('[') {
                 Some(t.trim_matches(|c| c == '[' || c == ']').trim().to_string())
             } else {
@@ -175,7 +178,9 @@ impl<'a> Locator<'a> {
 
     /// The key on the line of `offset`, when that line is `key = value`.
     fn key_at(&self, offset: usize) -> Option<String> {
-        let start = self.text[..offset.min(self.text.len())].rfind('\n').map_or(0, |i| i + 1);
+        let start = self.text[..offset.min(self.text.len())]
+            .rfind('\n')
+            .map_or(0, |i| i + 1);
         let line = self.text[start..].lines().next()?;
         let (key, _) = line.split_once('=')?;
         let key = key.trim();
@@ -376,7 +381,9 @@ fn control(spans: &mut Spans, i: usize, raw: Spanned<RawControl>) -> Control {
         y_outer: take(spans, &place, "y_outer", c.y_outer),
         chord_fraction: take(spans, &place, "chord_fraction", c.chord_fraction),
         deflection_deg: take_or(spans, &place, "deflection", c.deflection, 0.0),
-        effectiveness: c.effectiveness.map(|e| take(spans, &place, "effectiveness", e)),
+        effectiveness: c
+            .effectiveness
+            .map(|e| take(spans, &place, "effectiveness", e)),
     }
 }
 

@@ -58,7 +58,11 @@ impl Geometry {
             tip_chord,
             mean_chord: area / span,
             mac: c2 / area,
-            y_mac: if half_area > 0.0 { half_moment / half_area } else { 0.0 },
+            y_mac: if half_area > 0.0 {
+                half_moment / half_area
+            } else {
+                0.0
+            },
             max_sweep_deg,
             max_dihedral_deg,
             y_mid: 0.5 * (left + right),

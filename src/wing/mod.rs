@@ -4,8 +4,8 @@
 
 pub mod file;
 pub mod geometry;
-pub mod validate;
 mod model;
+pub mod validate;
 
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};

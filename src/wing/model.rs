@@ -164,7 +164,9 @@ impl Wing {
     pub fn section_at(&self, y: f64) -> Section {
         let y = if self.symmetric { y.abs() } else { y };
         let stations = &self.stations;
-        let upper = stations.partition_point(|s| s.y < y).clamp(1, stations.len() - 1);
+        let upper = stations
+            .partition_point(|s| s.y < y)
+            .clamp(1, stations.len() - 1);
         let (a, b) = (&stations[upper - 1], &stations[upper]);
         let t = ((y - a.y) / (b.y - a.y)).clamp(0.0, 1.0);
         let lerp = |p: f64, q: f64| p + (q - p) * t;
@@ -199,7 +201,10 @@ impl Wing {
                 .stations
                 .iter()
                 .rev()
-                .map(|s| Station { y: -s.y, ..s.clone() })
+                .map(|s| Station {
+                    y: -s.y,
+                    ..s.clone()
+                })
                 .collect();
         }
         for control in &mut wing.controls {

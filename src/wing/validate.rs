@@ -72,7 +72,11 @@ fn finite(out: &mut Vec<Problem>, place: &Place, field: &'static str, value: f64
     if value.is_finite() {
         true
     } else {
-        out.push(problem(place.clone(), field, format!("must be a finite number (got {value})")));
+        out.push(problem(
+            place.clone(),
+            field,
+            format!("must be a finite number (got {value})"),
+        ));
         false
     }
 }
@@ -94,7 +98,10 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 out.push(problem(
                     place.clone(),
                     "y",
-                    format!("a symmetric wing's first station must be at y = 0 (got {})", s.y),
+                    format!(
+                        "a symmetric wing's first station must be at y = 0 (got {})",
+                        s.y
+                    ),
                 ));
             }
             if i > 0 && wing.stations[i - 1].y.is_finite() && s.y <= wing.stations[i - 1].y {
@@ -111,7 +118,11 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
         }
         if finite(out, &place, "chord", s.chord) {
             if s.chord < 0.0 {
-                out.push(problem(place.clone(), "chord", format!("must be > 0 (got {})", s.chord)));
+                out.push(problem(
+                    place.clone(),
+                    "chord",
+                    format!("must be > 0 (got {})", s.chord),
+                ));
             } else if s.chord == 0.0 && !outermost {
                 out.push(problem(
                     place.clone(),
@@ -128,7 +139,11 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
             out.push(problem(
                 place,
                 "airfoil",
-                format!("unknown airfoil `{}`{}", s.airfoil, suggestion(&s.airfoil, &known)),
+                format!(
+                    "unknown airfoil `{}`{}",
+                    s.airfoil,
+                    suggestion(&s.airfoil, &known)
+                ),
             ));
         }
     }
@@ -160,10 +175,18 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
         }
         finite(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg);
         if finite(out, &place, "cl_max", a.cl_max) && a.cl_max <= 0.0 {
-            out.push(problem(place.clone(), "cl_max", format!("must be > 0 (got {})", a.cl_max)));
+            out.push(problem(
+                place.clone(),
+                "cl_max",
+                format!("must be > 0 (got {})", a.cl_max),
+            ));
         }
         if finite(out, &place, "cd0", a.cd0) && a.cd0 < 0.0 {
-            out.push(problem(place.clone(), "cd0", format!("must be >= 0 (got {})", a.cd0)));
+            out.push(problem(
+                place.clone(),
+                "cd0",
+                format!("must be >= 0 (got {})", a.cd0),
+            ));
         }
         finite(out, &place, "cd1", a.cd1);
         finite(out, &place, "cd2", a.cd2);
@@ -188,14 +211,20 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
             out.push(problem(
                 place.clone(),
                 "y_outer",
-                format!("must be greater than y_inner = {} (got {})", c.y_inner, c.y_outer),
+                format!(
+                    "must be greater than y_inner = {} (got {})",
+                    c.y_inner, c.y_outer
+                ),
             ));
         }
         if outer_ok && c.y_outer > reach + 1e-9 {
             out.push(problem(
                 place.clone(),
                 "y_outer",
-                format!("lies outside the span: the tip is at y = {reach} (got {})", c.y_outer),
+                format!(
+                    "lies outside the span: the tip is at y = {reach} (got {})",
+                    c.y_outer
+                ),
             ));
         }
         if finite(out, &place, "chord_fraction", c.chord_fraction)
@@ -204,13 +233,20 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
             out.push(problem(
                 place.clone(),
                 "chord_fraction",
-                format!("must be between 0 and 1, exclusive (got {})", c.chord_fraction),
+                format!(
+                    "must be between 0 and 1, exclusive (got {})",
+                    c.chord_fraction
+                ),
             ));
         }
         finite(out, &place, "deflection", c.deflection_deg);
         if let Some(e) = c.effectiveness {
             if finite(out, &place, "effectiveness", e) && e <= 0.0 {
-                out.push(problem(place.clone(), "effectiveness", format!("must be > 0 (got {e})")));
+                out.push(problem(
+                    place.clone(),
+                    "effectiveness",
+                    format!("must be > 0 (got {e})"),
+                ));
             }
         }
     }
@@ -230,10 +266,15 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
         finite(&mut out, &place, "cl", cl);
     }
     if finite(&mut out, &place, "speed", c.speed) && c.speed <= 0.0 {
-        out.push(problem(place.clone(), "speed", format!("must be > 0 m/s (got {})", c.speed)));
+        out.push(problem(
+            place.clone(),
+            "speed",
+            format!("must be > 0 m/s (got {})", c.speed),
+        ));
     }
     if finite(&mut out, &place, "altitude", c.altitude)
-        && !(crate::atmosphere::MIN_ALTITUDE..=crate::atmosphere::MAX_ALTITUDE).contains(&c.altitude)
+        && !(crate::atmosphere::MIN_ALTITUDE..=crate::atmosphere::MAX_ALTITUDE)
+            .contains(&c.altitude)
     {
         out.push(problem(
             place,

@@ -46,7 +46,10 @@ pub fn tapered(aspect_ratio: f64, taper: f64) -> Wing {
     let span = 2.0;
     let area = span * span / aspect_ratio;
     let root = 2.0 * area / (span * (1.0 + taper));
-    wing(vec![station(0.0, root, 0.0), station(1.0, root * taper, 0.0)], thin())
+    wing(
+        vec![station(0.0, root, 0.0), station(1.0, root * taper, 0.0)],
+        thin(),
+    )
 }
 
 pub fn rectangular(aspect_ratio: f64) -> Wing {
@@ -88,4 +91,59 @@ pub fn at_alpha(alpha_deg: f64) -> Condition {
         alpha_deg,
         ..Condition::default()
     }
+}
+
+/// Straight-tapered wing of span 2 with linear twist from 0 at the root to `tip_twist_deg`.
+pub fn tapered_twisted(aspect_ratio: f64, taper: f64, tip_twist_deg: f64) -> Wing {
+    let mut w = tapered(aspect_ratio, taper);
+    w.stations[1].twist_deg = tip_twist_deg;
+    w
+}
+
+/// A section with a profile-drag polar cd = cd0 + cd1 cl + cd2 cl^2 (slope 2 pi, no camber).
+pub fn with_drag(cd0: f64, cd1: f64, cd2: f64) -> Airfoil {
+    Airfoil {
+        cd0,
+        cd1,
+        cd2,
+        ..thin()
+    }
+}
+
+/// A rectangular AR-8 wing of span 2 with a part-span aileron from 60% to 95% semispan,
+/// 25% chord, right side deflected 10 deg trailing edge down.
+pub fn aileron_wing() -> Wing {
+    let mut w = rectangular(8.0);
+    w.controls.push(aileron(0.6, 0.95, 0.25, 10.0));
+    w
+}
+
+/// A pointed-tip (taper 0) untwisted wing of span 2 and aspect ratio 6.
+pub fn pointed(aspect_ratio: f64) -> Wing {
+    tapered(aspect_ratio, 0.0)
+}
+
+/// The same wing described over its whole span (symmetric = false), stations from -b/2 to b/2.
+pub fn unmirrored(w: &Wing) -> Wing {
+    assert!(w.symmetric, "unmirrored: wing must be symmetric");
+    let mut out = w.clone();
+    out.symmetric = false;
+    let mut stations: Vec<Station> = w
+        .stations
+        .iter()
+        .rev()
+        .filter(|s| s.y > 0.0)
+        .map(|s| Station {
+            y: -s.y,
+            ..s.clone()
+        })
+        .collect();
+    stations.extend(w.stations.iter().cloned());
+    out.stations = stations;
+    out
+}
+
+/// Relative difference |a - b| / |b|.
+pub fn rel(a: f64, b: f64) -> f64 {
+    (a - b).abs() / b.abs()
 }

@@ -1,0 +1,91 @@
+//! Convergence study of the Glauert collocation solver, printed as the tables of
+//! docs/theory.md. Not part of the normal test run (it solves up to 1000 terms):
+//!
+//!   cargo test --release --test convergence_study -- --ignored --nocapture
+//!
+//! The reference ("converged") value of each quantity is the 1000-term answer.
+
+mod common;
+
+use common::*;
+use gammaline::solver::{prepare, Options, DEFAULT_TERMS};
+use gammaline::wing::Wing;
+
+const COUNTS: [usize; 12] = [10, 20, 30, 40, 60, 80, 120, 160, 240, 320, 480, 640];
+const REFERENCE_TERMS: usize = 1000;
+
+/// (CL_alpha, delta at alpha = 5 deg, Cl_roll at alpha = 5 deg, CDp at alpha = 5 deg).
+fn quantities(wing: &Wing, terms: usize) -> [f64; 4] {
+    let p = prepare(wing, Options { terms }).expect("solvable");
+    let c = p.coefficients(5f64.to_radians());
+    [p.cl_alpha(), c.delta.unwrap_or(f64::NAN), c.cl_roll, c.cdp]
+}
+
+fn table(name: &str, wing: &Wing, columns: [bool; 4]) {
+    let labels = ["CL_alpha /rad", "delta", "Cl_roll", "CDp"];
+    let reference = quantities(wing, REFERENCE_TERMS);
+    println!("\n### {name}\n");
+    let mut header = String::from("| N |");
+    let mut rule = String::from("|---|");
+    for (l, _) in labels.iter().zip(columns).filter(|(_, on)| *on) {
+        header += &format!(" {l} | rel. error |");
+        rule += "---|---|";
+    }
+    println!("{header}\n{rule}");
+    let mut counts: Vec<usize> = COUNTS.to_vec();
+    if !counts.contains(&DEFAULT_TERMS) {
+        counts.push(DEFAULT_TERMS);
+        counts.sort_unstable();
+    }
+    for n in counts.into_iter().chain([REFERENCE_TERMS]) {
+        let q = quantities(wing, n);
+        let mut row = format!("| {n} |");
+        for i in (0..4).filter(|&i| columns[i]) {
+            let err = if n == REFERENCE_TERMS {
+                "(reference)".to_string()
+            } else {
+                format!("{:.1e}", rel(q[i], reference[i]))
+            };
+            row += &format!(" {:.6} | {err} |", q[i]);
+        }
+        println!("{row}");
+    }
+}
+
+#[test]
+#[ignore = "prints the convergence tables for docs/theory.md; run with --release"]
+fn print_convergence_tables() {
+    let mut rect = rectangular(6.0);
+    rect.airfoils
+        .insert("a".into(), with_drag(0.008, 0.0, 0.006));
+    table(
+        "Rectangular, AR 6, untwisted, cd = 0.008 + 0.006 cl^2",
+        &rect,
+        [true, true, false, true],
+    );
+
+    let mut washout = tapered_twisted(8.0, 0.5, -3.0);
+    washout
+        .airfoils
+        .insert("a".into(), with_drag(0.008, 0.0, 0.006));
+    table(
+        "Tapered, AR 8, taper 0.5, 3 deg linear washout, cd = 0.008 + 0.006 cl^2",
+        &washout,
+        [true, true, false, true],
+    );
+
+    table(
+        "Rectangular AR 8, aileron 0.60-0.95 semispan, 25% chord, +10 deg right",
+        &aileron_wing(),
+        [true, false, true, false],
+    );
+
+    let mut tip = pointed(6.0);
+    tip.airfoils
+        .insert("a".into(), with_drag(0.008, 0.0, 0.006));
+    table(
+        "Pointed tip (taper 0), AR 6, untwisted",
+        &tip,
+        [true, true, false, true],
+    );
+}
