@@ -14,21 +14,37 @@ use gammaline::wing::Wing;
 const COUNTS: [usize; 12] = [10, 20, 30, 40, 60, 80, 120, 160, 240, 320, 480, 640];
 const REFERENCE_TERMS: usize = 1000;
 
-/// (CL_alpha, delta at alpha = 5 deg, Cl_roll at alpha = 5 deg, CDp at alpha = 5 deg).
-fn quantities(wing: &Wing, terms: usize) -> [f64; 4] {
+const LABELS: [&str; 7] = ["CL_alpha /rad", "CL", "CDi", "e", "delta", "Cl_roll", "CDp"];
+const CL_ALPHA: usize = 0;
+const CL: usize = 1;
+const CDI: usize = 2;
+const E: usize = 3;
+const DELTA: usize = 4;
+const CL_ROLL: usize = 5;
+const CDP: usize = 6;
+
+/// The quantities of [`LABELS`]; all but CL_alpha at alpha = 5 deg.
+fn quantities(wing: &Wing, terms: usize) -> [f64; 7] {
     let p = prepare(wing, Options { terms }).expect("solvable");
     let c = p.coefficients(5f64.to_radians());
-    [p.cl_alpha(), c.delta.unwrap_or(f64::NAN), c.cl_roll, c.cdp]
+    [
+        p.cl_alpha(),
+        c.cl,
+        c.cdi,
+        c.e.unwrap_or(f64::NAN),
+        c.delta.unwrap_or(f64::NAN),
+        c.cl_roll,
+        c.cdp,
+    ]
 }
 
-fn table(name: &str, wing: &Wing, columns: [bool; 4]) {
-    let labels = ["CL_alpha /rad", "delta", "Cl_roll", "CDp"];
+fn table(name: &str, wing: &Wing, columns: &[usize]) {
     let reference = quantities(wing, REFERENCE_TERMS);
     println!("\n### {name}\n");
     let mut header = String::from("| N |");
     let mut rule = String::from("|---|");
-    for (l, _) in labels.iter().zip(columns).filter(|(_, on)| *on) {
-        header += &format!(" {l} | rel. error |");
+    for &i in columns {
+        header += &format!(" {} | rel. error |", LABELS[i]);
         rule += "---|---|";
     }
     println!("{header}\n{rule}");
@@ -40,7 +56,7 @@ fn table(name: &str, wing: &Wing, columns: [bool; 4]) {
     for n in counts.into_iter().chain([REFERENCE_TERMS]) {
         let q = quantities(wing, n);
         let mut row = format!("| {n} |");
-        for i in (0..4).filter(|&i| columns[i]) {
+        for &i in columns {
             let err = if n == REFERENCE_TERMS {
                 "(reference)".to_string()
             } else {
@@ -61,7 +77,7 @@ fn print_convergence_tables() {
     table(
         "Rectangular, AR 6, untwisted, cd = 0.008 + 0.006 cl^2",
         &rect,
-        [true, true, false, true],
+        &[CL_ALPHA, CDI, E, DELTA, CDP],
     );
 
     let mut washout = tapered_twisted(8.0, 0.5, -3.0);
@@ -71,13 +87,19 @@ fn print_convergence_tables() {
     table(
         "Tapered, AR 8, taper 0.5, 3 deg linear washout, cd = 0.008 + 0.006 cl^2",
         &washout,
-        [true, true, false, true],
+        &[CL_ALPHA, CL, CDI, E, DELTA, CDP],
     );
 
     table(
         "Rectangular AR 8, aileron 0.60-0.95 semispan, 25% chord, +10 deg right",
         &aileron_wing(),
-        [true, false, true, false],
+        &[CL_ALPHA, CL_ROLL],
+    );
+
+    table(
+        "Tapered, AR 8, taper 0.5, untwisted",
+        &tapered(8.0, 0.5),
+        &[CL_ALPHA, CDI, E, DELTA],
     );
 
     let mut tip = pointed(6.0);
@@ -86,6 +108,6 @@ fn print_convergence_tables() {
     table(
         "Pointed tip (taper 0), AR 6, untwisted",
         &tip,
-        [true, true, false, true],
+        &[CL_ALPHA, CDI, E, DELTA, CDP],
     );
 }

@@ -65,11 +65,14 @@ pub enum SolveError {
 #[derive(Debug, Clone)]
 pub struct Prepared {
     geometry: Geometry,
-    map: SpanMap,
     per_alpha: Vec<f64>,
     at_zero: Vec<f64>,
     integrals: LoadIntegrals,
-    wing: Wing,
+    /// Local values at the collocation points, left tip to right tip.
+    points: Vec<spanwise::LinearPoint>,
+    /// Local values at the wing's stations.
+    station_points: Vec<spanwise::LinearPoint>,
+    first_stall: Option<FirstStall>,
     warnings: Vec<String>,
 }
 
@@ -103,8 +106,8 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     for span in &control_spans {
         fourier::add_control_shift(map, &thetas, span, &mut rhs);
     }
-    let responses =
-        fourier::responses(fourier::matrix(&thetas, &mu), &rhs).ok_or(SolveError::Singular)?;
+    let responses = fourier::solve_collocation(&thetas, &mu, &rhs, wing.symmetric)
+        .ok_or(SolveError::Singular)?;
     let edges: Vec<f64> = control_spans
         .iter()
         .flat_map(|s| [s.y_from, s.y_to])
@@ -118,15 +121,23 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         &edges,
     );
     let warnings = validate::warnings(wing, &geometry);
-    Ok(Prepared {
+    let pair = (responses.at_zero.as_slice(), responses.per_alpha.as_slice());
+    let points = spanwise::linear_points(wing, map, geometry.mean_chord, pair, &thetas);
+    let station_thetas: Vec<f64> = wing.stations.iter().map(|s| map.theta(s.y)).collect();
+    let station_points =
+        spanwise::linear_points(wing, map, geometry.mean_chord, pair, &station_thetas);
+    let mut prepared = Prepared {
         geometry,
-        map,
         per_alpha: responses.per_alpha,
         at_zero: responses.at_zero,
         integrals,
-        wing: wing.clone(),
+        points,
+        station_points,
+        first_stall: None,
         warnings,
-    })
+    };
+    prepared.first_stall = prepared.find_first_stall();
+    Ok(prepared)
 }
 
 /// Solves a wing at a condition with default options.
@@ -352,17 +363,8 @@ impl Prepared {
             root_bending_moment: q * root_bending_per_q,
             left_root_bending_moment: q * self.integrals.left_moment.at(alpha),
         };
-        let evaluator = spanwise::Evaluator::new(&self.wing, self.map, g.area / g.span, v);
-        let spanwise = fourier::collocation_angles(fourier.len())
-            .into_iter()
-            .map(|theta| evaluator.at_theta(&fourier, theta, alpha))
-            .collect::<Vec<_>>();
-        let stations = self
-            .wing
-            .stations
-            .iter()
-            .map(|s| evaluator.at_theta(&fourier, self.map.theta(s.y), alpha))
-            .collect();
+        let spanwise: Vec<SpanPoint> = self.points.iter().map(|p| p.at(alpha, v)).collect();
+        let stations = self.station_points.iter().map(|p| p.at(alpha, v)).collect();
         let mean_slope = self.integrals.mean_lift_slope;
         let cl_alpha = self.cl_alpha();
         let mut warnings = self.warnings.clone();
@@ -379,7 +381,7 @@ impl Prepared {
                 f64::NAN
             },
             root_bending_per_q,
-            first_stall: self.first_stall(&evaluator),
+            first_stall: self.first_stall,
             spanwise,
             stations,
             flight,
@@ -391,18 +393,16 @@ impl Prepared {
     /// Linear critical-section estimate: each output point's cl is linear in alpha, so the
     /// alpha at which it reaches cl_max is found exactly; the least of these is the first
     /// stall. Right-half points win ties, so a symmetric wing reports y >= 0.
-    fn first_stall(&self, evaluator: &spanwise::Evaluator<'_>) -> Option<FirstStall> {
-        let thetas = fourier::collocation_angles(self.per_alpha.len());
+    fn find_first_stall(&self) -> Option<FirstStall> {
         let mut best: Option<(f64, f64)> = None;
-        for &theta in thetas.iter().rev() {
-            let zero = evaluator.at_theta(&self.at_zero, theta, 0.0);
-            let slope = evaluator.cl_per_alpha(&self.per_alpha, theta);
+        for p in self.points.iter().rev() {
+            let (zero, slope) = p.cl;
             if slope <= 1e-9 {
                 continue;
             }
-            let alpha = (zero.cl_max - zero.cl) / slope;
-            if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
-                best = Some((alpha, zero.y));
+            let alpha = (p.cl_max - zero) / slope;
+            if best.map_or(true, |(a, _)| alpha < a - 1e-12) {
+                best = Some((alpha, p.y));
             }
         }
         best.map(|(alpha, y)| FirstStall {
