@@ -102,6 +102,12 @@ fn print_convergence_tables() {
         &[CL_ALPHA, CDI, E, DELTA],
     );
 
+    table(
+        "Smooth taper (chord 1 - 0.6 eta^2, twist -3 eta^2 deg, 81 stations), AR 8",
+        &smooth_tapered(),
+        &[CL_ALPHA, CL, CDI, E, CDP],
+    );
+
     let mut tip = pointed(6.0);
     tip.airfoils
         .insert("a".into(), with_drag(0.008, 0.0, 0.006));
