@@ -1,68 +1,209 @@
-//! Properties of the solver on random valid wings (proptest): symmetry, mirroring and
-//! linearity in alpha (consequences of the linear lifting-line equation; common practice,
-//! no source).
+//! Properties every lifting-line solution must have whatever the wing: symmetry, mirror
+//! images, linearity in alpha and the sign conventions of lifting-line-reference.md sec. 1.
+//! (Consequences of the linear lifting-line equation; common practice, no single source.)
 
 mod common;
 
-use gammaline::solver::{self, Options};
+use approx::assert_relative_eq;
+use common::*;
+use gammaline::solver::{prepare, Coefficients, Options};
+use gammaline::wing::{Airfoil, Station, Wing};
 use proptest::prelude::*;
 
-/// A random full-span wing: three stations each side of the root, random chords and twists.
-fn full_span_wing(chords: &[f64], twists: &[f64]) -> gammaline::wing::Wing {
-    let ys = [-1.0, -0.6, -0.25, 0.0, 0.3, 0.7, 1.0];
-    let stations = ys
-        .iter()
-        .zip(chords.iter().zip(twists))
-        .map(|(&y, (&c, &t))| common::station(y, c, t))
-        .collect();
-    let mut wing = common::wing(stations, common::thin());
-    wing.symmetric = false;
-    wing
+fn coefficients(w: &Wing, alpha_deg: f64, terms: usize) -> Coefficients {
+    prepare(w, Options { terms })
+        .expect("solvable")
+        .coefficients(alpha_deg.to_radians())
+}
+
+/// A section with camber and drag, so every term of the polars is exercised.
+fn cambered() -> Airfoil {
+    Airfoil {
+        lift_slope: 5.9,
+        alpha_zero_lift_deg: -2.0,
+        cl_max: 1.4,
+        cd0: 0.009,
+        cd1: -0.002,
+        cd2: 0.006,
+    }
+}
+
+/// An asymmetric wing described over the whole span: different chords and twists left and
+/// right, so every moment is non-zero.
+fn lopsided() -> Wing {
+    let mut w = wing(
+        vec![
+            station(-1.1, 0.12, -1.0),
+            station(0.0, 0.30, 0.0),
+            station(0.4, 0.28, 0.5),
+            station(1.0, 0.16, -2.5),
+        ],
+        cambered(),
+    );
+    w.symmetric = false;
+    w.controls.push(aileron(0.5, 0.9, 0.25, 6.0));
+    w
+}
+
+/// Mirroring a wing left to right flips the sign of the rolling and yawing moments and leaves
+/// lift and drag alone. Moments are about y = 0 and the mirror is about y = 0, so the only
+/// error is rounding: 1e-12 (relative to the coefficient's size).
+#[test]
+fn mirroring_flips_roll_and_yaw() {
+    let w = lopsided();
+    let a = coefficients(&w, 4.0, 40);
+    let b = coefficients(&w.mirrored(), 4.0, 40);
+    assert!(
+        a.cl_roll.abs() > 1e-3 && a.cn.abs() > 1e-5,
+        "test wing not asymmetric: {a:?}"
+    );
+    assert_relative_eq!(b.cl_roll, -a.cl_roll, max_relative = 1e-10);
+    assert_relative_eq!(b.cn, -a.cn, max_relative = 1e-9);
+    assert_relative_eq!(b.cl, a.cl, max_relative = 1e-12);
+    assert_relative_eq!(b.cdi, a.cdi, max_relative = 1e-12);
+    assert_relative_eq!(b.cdp, a.cdp, max_relative = 1e-12);
+}
+
+/// Right aileron trailing edge down (positive deflection) puts more lift on the right half:
+/// negative Cl_roll (positive is right wing down, lifting-line-reference.md sec. 1). The extra
+/// lift on the right brings extra induced drag there, yawing the nose right, toward the
+/// rising wing: positive Cn, the adverse yaw of ailerons. Antisymmetric, the deflection adds no
+/// lift.
+#[test]
+fn aileron_signs() {
+    let w = aileron_wing();
+    let mut neutral = w.clone();
+    neutral.controls[0].deflection_deg = 0.0;
+    let c = coefficients(&w, 5.0, 60);
+    let c0 = coefficients(&neutral, 5.0, 60);
+    assert!(c.cl_roll < -0.01, "Cl_roll = {}", c.cl_roll);
+    assert!(c.cn_induced > 1e-4, "Cn induced = {}", c.cn_induced);
+    assert!(c0.cl_roll.abs() < 1e-14 && c0.cn.abs() < 1e-14, "{c0:?}");
+    assert_relative_eq!(c.cl, c0.cl, max_relative = 1e-12);
+    // With the deflection reversed everything about roll reverses too.
+    let mut reversed = w.clone();
+    reversed.controls[0].deflection_deg = -10.0;
+    assert_relative_eq!(
+        coefficients(&reversed, 5.0, 60).cl_roll,
+        -c.cl_roll,
+        max_relative = 1e-10
+    );
+}
+
+/// The angle of attack of the reference line is arbitrary: adding 2 deg to every station's
+/// twist and solving 2 deg lower must give the same wing. This ties the twist path (the
+/// right-hand side) to the alpha path (the per-alpha response) of the solver.
+#[test]
+fn reference_line_is_arbitrary() {
+    let w = lopsided();
+    let mut turned = w.clone();
+    for s in &mut turned.stations {
+        s.twist_deg += 2.0;
+    }
+    let a = coefficients(&w, 5.0, 40);
+    let b = coefficients(&turned, 3.0, 40);
+    for (x, y) in [
+        (a.cl, b.cl),
+        (a.cdi, b.cdi),
+        (a.cdp, b.cdp),
+        (a.cl_roll, b.cl_roll),
+        (a.cn, b.cn),
+    ] {
+        assert_relative_eq!(x, y, max_relative = 1e-9);
+    }
+}
+
+/// A random tapered, twisted, cambered half wing.
+fn half_wing() -> impl Strategy<Value = Wing> {
+    (
+        4.0..20.0f64,
+        0.2..1.0f64,
+        -5.0..2.0f64,
+        -3.0..1.0f64,
+        0.3..0.7f64,
+    )
+        .prop_map(|(ar, taper, tip_twist, kink_twist, kink)| {
+            let span = 2.0;
+            let area = span * span / ar;
+            let root = 2.0 * area / (span * (1.0 + taper));
+            let mid_chord = root * (1.0 - (1.0 - taper) * kink);
+            let stations = vec![
+                station(0.0, root, 0.0),
+                station(kink, mid_chord, kink_twist),
+                station(1.0, root * taper, tip_twist),
+            ];
+            wing(stations, cambered())
+        })
+}
+
+/// The same wing described over the whole span with an independent twist on each side.
+fn asymmetric_wing() -> impl Strategy<Value = Wing> {
+    (half_wing(), -2.0..2.0f64, -2.0..2.0f64).prop_map(|(w, dl, dr)| {
+        let mut w = unmirrored(&w);
+        let last = w.stations.len() - 1;
+        w.stations[0].twist_deg += dl;
+        w.stations[last].twist_deg += dr;
+        w
+    })
 }
 
 proptest! {
-    #![proptest_config(ProptestConfig::with_cases(24))]
+    #![proptest_config(ProptestConfig { cases: 48, ..ProptestConfig::default() })]
 
+    /// A symmetric wing has no rolling or yawing moment, whichever way it is described: the
+    /// mirrored description (odd/even split) and the whole-span description (full system)
+    /// must agree with each other and give zero moments (to rounding, 1e-12).
     #[test]
-    fn mirrored_wings_have_no_roll_or_yaw(root in 0.1..0.5f64, taper in 0.2..1.0f64, washout in -4.0..2.0f64) {
-        let mut wing = common::tapered(6.0, taper);
-        wing.stations[0].chord = root;
-        wing.stations[1].twist_deg = washout;
-        let c = common::solve(&wing, 4.0).coefficients;
-        prop_assert!(c.cl_roll.abs() < 1e-12 && c.cn.abs() < 1e-12);
-    }
-
-    #[test]
-    fn mirroring_reverses_roll_and_yaw(
-        chords in prop::collection::vec(0.05..0.4f64, 7),
-        twists in prop::collection::vec(-4.0..4.0f64, 7),
-        alpha in -4.0..10.0f64,
-    ) {
-        let wing = full_span_wing(&chords, &twists);
-        let a = common::solve(&wing, alpha).coefficients;
-        let b = common::solve(&wing.mirrored(), alpha).coefficients;
-        let scale = a.cl.abs().max(1e-3);
-        prop_assert!((a.cl - b.cl).abs() < 1e-10 * scale);
-        prop_assert!((a.cl_roll + b.cl_roll).abs() < 1e-10 * scale);
-        prop_assert!((a.cn + b.cn).abs() < 1e-10 * scale);
-    }
-
-    #[test]
-    fn coefficients_are_linear_in_alpha(
-        chords in prop::collection::vec(0.05..0.4f64, 7),
-        twists in prop::collection::vec(-4.0..4.0f64, 7),
-        a1 in -5.0..10.0f64,
-        a2 in -5.0..10.0f64,
-    ) {
-        let wing = full_span_wing(&chords, &twists);
-        let p = solver::prepare(&wing, Options::default()).expect("valid wing");
-        let (x, y) = (a1.to_radians(), a2.to_radians());
-        let mid = p.fourier_at(0.5 * (x + y));
-        let (fx, fy) = (p.fourier_at(x), p.fourier_at(y));
-        for ((m, u), v) in mid.iter().zip(&fx).zip(&fy) {
-            prop_assert!((m - 0.5 * (u + v)).abs() < 1e-12);
+    fn symmetric_wing_has_no_roll_or_yaw(w in half_wing(), alpha in -4.0..10.0f64) {
+        let a = coefficients(&w, alpha, 30);
+        let b = coefficients(&unmirrored(&w), alpha, 30);
+        for c in [&a, &b] {
+            prop_assert!(c.cl_roll.abs() < 1e-12, "Cl_roll = {}", c.cl_roll);
+            prop_assert!(c.cn.abs() < 1e-12, "Cn = {}", c.cn);
         }
-        let cl = |a: f64| p.coefficients(a).cl;
-        prop_assert!((cl(0.5 * (x + y)) - 0.5 * (cl(x) + cl(y))).abs() < 1e-12);
+        prop_assert!((a.cl - b.cl).abs() < 1e-12 * a.cl.abs().max(1.0));
+        prop_assert!((a.cdi - b.cdi).abs() < 1e-10 * a.cdi.abs().max(1e-6));
     }
+
+    /// Mirroring flips the moments of any asymmetric wing.
+    #[test]
+    fn mirroring_flips_moments(w in asymmetric_wing(), alpha in -4.0..10.0f64) {
+        let a = coefficients(&w, alpha, 30);
+        let b = coefficients(&w.mirrored(), alpha, 30);
+        let scale = a.cl.abs().max(0.01);
+        prop_assert!((a.cl_roll + b.cl_roll).abs() < 1e-12 * scale);
+        prop_assert!((a.cn + b.cn).abs() < 1e-12 * scale);
+        prop_assert!((a.cl - b.cl).abs() < 1e-12 * scale);
+    }
+
+    /// Lift is linear in alpha and the drags are quadratic: second differences of CL vanish
+    /// and those of CDi and CDp are constant. Each alpha is a fresh, full solve.
+    #[test]
+    fn linear_in_alpha(w in asymmetric_wing(), alpha in -4.0..8.0f64, step in 0.5..3.0f64) {
+        let solve = |a: f64| {
+            prepare(&w, Options { terms: 30 })
+                .expect("solvable")
+                .solve(&at_alpha(a))
+                .expect("solves")
+                .coefficients
+        };
+        let [c0, c1, c2, c3] = [0.0, 1.0, 2.0, 3.0].map(|k| solve(alpha + k * step));
+        let scale = c1.cl.abs().max(c2.cl.abs()).max(0.1);
+        prop_assert!((c0.cl - 2.0 * c1.cl + c2.cl).abs() < 1e-12 * scale);
+        prop_assert!((c0.cl_roll - 2.0 * c1.cl_roll + c2.cl_roll).abs() < 1e-12 * scale);
+        let d2 = |a: f64, b: f64, c: f64| a - 2.0 * b + c;
+        let (i1, i2) = (d2(c0.cdi, c1.cdi, c2.cdi), d2(c1.cdi, c2.cdi, c3.cdi));
+        prop_assert!((i1 - i2).abs() < 1e-12 * scale);
+        let (p1, p2) = (d2(c0.cdp, c1.cdp, c2.cdp), d2(c1.cdp, c2.cdp, c3.cdp));
+        prop_assert!((p1 - p2).abs() < 1e-12 * scale);
+    }
+}
+
+/// A station list helper must keep stations strictly increasing (guards the generators).
+#[test]
+fn generators_build_valid_wings() {
+    let w = unmirrored(&tapered(6.0, 0.5));
+    let ys: Vec<f64> = w.stations.iter().map(|s: &Station| s.y).collect();
+    assert!(ys.windows(2).all(|p| p[0] < p[1]), "{ys:?}");
+    assert!(prepare(&w, Options::default()).is_ok());
 }

@@ -29,6 +29,12 @@ impl SpanMap {
         self.y_mid - self.half_span * theta.cos()
     }
 
+    /// y at the angle whose cosine is `cos_theta`.
+    #[must_use]
+    pub fn y_at_cos(self, cos_theta: f64) -> f64 {
+        self.y_mid - self.half_span * cos_theta
+    }
+
     /// theta at y, clamped to [0, pi].
     #[must_use]
     pub fn theta(self, y: f64) -> f64 {
@@ -70,22 +76,60 @@ pub fn series_at(a: &[f64], theta: f64, ratios: &mut [f64]) -> (f64, f64) {
     (load * s, induced)
 }
 
-/// Sums of two series at one angle sharing one evaluation of the sine ratios:
-/// `[(sum A_n sin n theta, sum n A_n sin n theta / sin theta); 2]` for `a` and `b`.
+/// The series sums of both responses at one angle, as (value at zero alpha, value per radian).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PairSums {
+    /// sum A_n sin(n theta).
+    pub load: (f64, f64),
+    /// sum n A_n sin(n theta) / sin(theta): the induced angle.
+    pub induced: (f64, f64),
+}
+
+/// Angles evaluated side by side: the Chebyshev recurrence is a serial chain, so running
+/// several independent chains at once keeps the floating-point units busy.
+const LANES: usize = 4;
+
+/// [`series_at`] for both responses at many angles, given as `(cos theta, sin theta)`, in one
+/// recurrence per angle. The sums are formed in the same order as [`series_at`].
 #[must_use]
-pub fn series_pair_at(a: &[f64], b: &[f64], theta: f64, ratios: &mut [f64]) -> [(f64, f64); 2] {
-    sine_ratios(theta, ratios);
-    let s = theta.sin();
-    let mut out = [(0.0, 0.0); 2];
-    for (n, ((&an, &bn), &u)) in a.iter().zip(b).zip(ratios.iter()).enumerate() {
-        let order = (n + 1) as f64;
-        out[0].0 += an * u;
-        out[0].1 += order * an * u;
-        out[1].0 += bn * u;
-        out[1].1 += order * bn * u;
+pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> Vec<PairSums> {
+    let weighted: Vec<[f64; 4]> = at_zero
+        .iter()
+        .zip(per_alpha)
+        .enumerate()
+        .map(|(i, (&z, &p))| {
+            let order = (i + 1) as f64;
+            [z, p, order * z, order * p]
+        })
+        .collect();
+    let mut out = Vec::with_capacity(angles.len());
+    for chunk in angles.chunks(LANES) {
+        let mut two_x = [0.0; LANES];
+        for (slot, &(cos, _)) in two_x.iter_mut().zip(chunk) {
+            *slot = 2.0 * cos;
+        }
+        let mut previous = [0.0; LANES];
+        let mut current = [1.0; LANES];
+        let mut acc = [[0.0; LANES]; 4];
+        for w in &weighted {
+            for (sum, &coefficient) in acc.iter_mut().zip(w) {
+                for (slot, &u) in sum.iter_mut().zip(&current) {
+                    *slot += coefficient * u;
+                }
+            }
+            for lane in 0..LANES {
+                let next = two_x[lane] * current[lane] - previous[lane];
+                previous[lane] = current[lane];
+                current[lane] = next;
+            }
+        }
+        for (lane, &(_, s)) in chunk.iter().enumerate() {
+            out.push(PairSums {
+                load: (acc[0][lane] * s, acc[1][lane] * s),
+                induced: (acc[2][lane], acc[3][lane]),
+            });
+        }
     }
-    out[0].0 *= s;
-    out[1].0 *= s;
     out
 }
 
@@ -132,51 +176,81 @@ pub struct Responses {
     pub at_zero: Vec<f64>,
 }
 
-/// Solves a mirrored wing's system in two halves.
+/// Solves the collocation system for both responses: the right-hand side 1 (per radian of
+/// alpha) and `at_zero_rhs`.
 ///
-/// On a wing mirrored about its span midpoint, mu(theta) = mu(pi - theta) and
-/// sin(n (pi - theta)) = (-1)^(n+1) sin(n theta), so adding and subtracting the equations at
-/// theta_k and pi - theta_k splits the system exactly: the odd terms answer the symmetric part
-/// of the right-hand side, the even terms the antisymmetric part. Two systems of N/2 cost a
-/// quarter of one of N to factor. `mu` and `rhs` are given at all N collocation angles.
+/// For a mirrored wing, mu at theta and at pi - theta are equal and
+/// sin(n (pi - theta)) = (-1)^(n+1) sin(n theta), so the sum and the difference of each pair of
+/// mirrored rows involve only odd and only even n respectively: two systems of half the size,
+/// a quarter of the factorisation work, and the same solution up to rounding.
+/// Returns `None` when the matrix is singular.
 #[must_use]
-pub fn responses_mirrored(thetas: &[f64], mu: &[f64], rhs: &[f64]) -> Option<Responses> {
+pub fn solve_collocation(
+    thetas: &[f64],
+    mu: &[f64],
+    at_zero_rhs: &[f64],
+    mirrored: bool,
+) -> Option<Responses> {
+    if !mirrored {
+        return responses(matrix(thetas, mu), at_zero_rhs);
+    }
     let n = thetas.len();
-    let (odd, even) = (n.div_ceil(2), n / 2);
-    let mut m_odd = DMatrix::zeros(odd, odd);
-    let mut m_even = DMatrix::zeros(even, even);
-    let mut ratios = vec![0.0; n];
-    for k in 0..odd {
-        sine_ratios(thetas[k], &mut ratios);
-        let s = thetas[k].sin();
-        for (j, &u) in ratios.iter().enumerate() {
-            let value = u * (mu[k] * s + (j + 1) as f64);
-            match (j % 2, k < even) {
-                (0, _) => m_odd[(k, j / 2)] = value,
-                (_, true) => m_even[(k, j / 2)] = value,
-                _ => {}
-            }
+    let pairs = n / 2;
+    let odd_count = n - pairs;
+    // Column by column (contiguous in nalgebra's column-major storage), running the
+    // recurrence sin(n theta)/sin(theta) = U_{n-1}(cos theta) for all rows at once.
+    let rows = &thetas[..odd_count];
+    let two_x: Vec<f64> = rows.iter().map(|t| 2.0 * t.cos()).collect();
+    let mu_s: Vec<f64> = rows.iter().zip(mu).map(|(t, m)| m * t.sin()).collect();
+    let mut previous = vec![0.0; odd_count];
+    let mut current = vec![1.0; odd_count];
+    let mut odd = DMatrix::zeros(odd_count, odd_count);
+    let mut even = DMatrix::zeros(pairs, pairs);
+    for j in 0..n {
+        let order = (j + 1) as f64;
+        let (column, used) = if j % 2 == 0 {
+            (odd.column_mut(j / 2), odd_count)
+        } else {
+            (even.column_mut(j / 2), pairs)
+        };
+        for (slot, (&u, &ms)) in column.into_iter().zip(current.iter().zip(&mu_s)).take(used) {
+            *slot = u * (ms + order);
+        }
+        for k in 0..odd_count {
+            let next = two_x[k] * current[k] - previous[k];
+            previous[k] = current[k];
+            current[k] = next;
         }
     }
-    let mirror = |k: usize| rhs[n - 1 - k];
-    let symmetric: Vec<f64> = (0..odd).map(|k| 0.5 * (rhs[k] + mirror(k))).collect();
-    let antisymmetric: Vec<f64> = (0..even).map(|k| 0.5 * (rhs[k] - mirror(k))).collect();
-    let lu_odd = m_odd.lu();
-    let per_alpha_odd = lu_odd.solve(&DVector::from_element(odd, 1.0))?;
-    let zero_odd = lu_odd.solve(&DVector::from_vec(symmetric))?;
-    let zero_even = if even > 0 {
-        m_even.lu().solve(&DVector::from_vec(antisymmetric))?
+    let mirror = |k: usize| at_zero_rhs[n - 1 - k];
+    let odd_rhs: Vec<f64> = (0..odd_count)
+        .map(|k| {
+            if k < pairs {
+                0.5 * (at_zero_rhs[k] + mirror(k))
+            } else {
+                at_zero_rhs[k]
+            }
+        })
+        .collect();
+    let even_rhs: Vec<f64> = (0..pairs)
+        .map(|k| 0.5 * (at_zero_rhs[k] - mirror(k)))
+        .collect();
+    let odd_lu = odd.lu();
+    let odd_alpha = odd_lu.solve(&DVector::from_element(odd_count, 1.0))?;
+    let odd_zero = odd_lu.solve(&DVector::from_column_slice(&odd_rhs))?;
+    let even_zero = if pairs > 0 {
+        even.lu().solve(&DVector::from_column_slice(&even_rhs))?
     } else {
         DVector::zeros(0)
     };
     let mut per_alpha = vec![0.0; n];
     let mut at_zero = vec![0.0; n];
-    for j in 0..odd {
-        per_alpha[2 * j] = per_alpha_odd[j];
-        at_zero[2 * j] = zero_odd[j];
+    for (i, (&a, &z)) in odd_alpha.iter().zip(odd_zero.iter()).enumerate() {
+        per_alpha[2 * i] = a;
+        at_zero[2 * i] = z;
     }
-    for j in 0..even {
-        at_zero[2 * j + 1] = zero_even[j];
+    for (i, &z) in even_zero.iter().enumerate() {
+        at_zero[2 * i + 1] = z;
     }
     let finite = per_alpha.iter().chain(&at_zero).all(|v| v.is_finite());
     finite.then_some(Responses { per_alpha, at_zero })

@@ -4,7 +4,7 @@
 //! the profile drag, induced yaw and bending moment are polynomials of degree two at most.
 //! Their coefficients are integrated once per geometry, so an alpha sweep costs almost nothing.
 
-use super::fourier::{series_pair_at, SpanMap};
+use super::fourier::{pair_sums, SpanMap};
 use crate::wing::Wing;
 
 /// p0 + p1 alpha + p2 alpha^2 (alpha in radians).
@@ -80,7 +80,46 @@ fn breakpoints(wing: &Wing, map: SpanMap, edges: &[f64], cells: usize) -> Vec<f6
     thetas
 }
 
+/// The section properties the integrals need, at one point.
+#[derive(Debug, Clone, Copy)]
+struct Local {
+    chord: f64,
+    lift_slope: f64,
+    cd0: f64,
+    cd1: f64,
+    cd2: f64,
+}
+
+impl Local {
+    fn at(wing: &Wing, y: f64) -> Self {
+        let s = wing.section_at(y);
+        Self {
+            chord: s.chord,
+            lift_slope: s.airfoil.lift_slope,
+            cd0: s.airfoil.cd0,
+            cd1: s.airfoil.cd1,
+            cd2: s.airfoil.cd2,
+        }
+    }
+
+    /// Linear interpolation, fraction `t` of the way from `self` to `other`.
+    fn lerp(self, other: Self, t: f64) -> Self {
+        let mix = |p: f64, q: f64| p + (q - p) * t;
+        Self {
+            chord: mix(self.chord, other.chord),
+            lift_slope: mix(self.lift_slope, other.lift_slope),
+            cd0: mix(self.cd0, other.cd0),
+            cd1: mix(self.cd1, other.cd1),
+            cd2: mix(self.cd2, other.cd2),
+        }
+    }
+}
+
 /// Integrates the load polynomials for the responses `per_alpha` and `at_zero`.
+///
+/// Every station (and its mirror) is a breakpoint, so inside a cell the section varies
+/// linearly in y: the sections are looked up once per breakpoint and interpolated at the
+/// Gauss nodes, which gives the same values as looking each node up.
 #[must_use]
 pub fn integrate(
     wing: &Wing,
@@ -93,53 +132,62 @@ pub fn integrate(
     let span = 2.0 * map.half_span;
     let cells = (per_alpha.len() / 2).max(16);
     let thetas = breakpoints(wing, map, control_edges, cells);
-    let mut ratios = vec![0.0; per_alpha.len()];
-    let sections = crate::wing::Sections::of(wing);
-    let mut out = LoadIntegrals::default();
-    for pair in thetas.windows(2) {
+    let ends: Vec<(f64, Local)> = thetas
+        .iter()
+        .map(|&t| {
+            let y = map.y(t);
+            (y, Local::at(wing, y))
+        })
+        .collect();
+    let mut nodes = Vec::with_capacity(GAUSS5.len() * thetas.len());
+    let mut angles = Vec::with_capacity(GAUSS5.len() * thetas.len());
+    for (pair, end) in thetas.windows(2).zip(ends.windows(2)) {
         let (lo, hi) = (pair[0], pair[1]);
+        let ((y_lo, s_lo), (y_hi, s_hi)) = (end[0], end[1]);
         let half = 0.5 * (hi - lo);
         for (node, weight) in GAUSS5 {
             let theta = lo + half * (1.0 + node);
-            let y = map.y(theta);
+            let (sin, cos) = theta.sin_cos();
+            let y = map.y_at_cos(cos);
+            let t = if y_hi == y_lo {
+                0.0
+            } else {
+                ((y - y_lo) / (y_hi - y_lo)).clamp(0.0, 1.0)
+            };
             // dy = (b/2) sin(theta) d(theta)
-            let w = weight * half * map.half_span * theta.sin();
-            let [(ga, ia), (g0, i0)] = series_pair_at(per_alpha, at_zero, theta, &mut ratios);
-            // c*cl = 4 b sum A_n sin(n theta)
-            let ccl = (4.0 * span * g0, 4.0 * span * ga);
-            let induced = (i0, ia);
-            let section = sections.at(y);
-            add_point(&mut out, w, y, section, ccl, induced, area, span);
+            let w = weight * half * map.half_span * sin;
+            nodes.push((w, y, s_lo.lerp(s_hi, t)));
+            angles.push((cos, sin));
         }
+    }
+    let sums = pair_sums(at_zero, per_alpha, &angles);
+    let mut out = LoadIntegrals::default();
+    for (&(w, y, section), sum) in nodes.iter().zip(&sums) {
+        // c*cl = 4 b sum A_n sin(n theta)
+        let ccl = (4.0 * span * sum.load.0, 4.0 * span * sum.load.1);
+        add_point(&mut out, (w, y), section, ccl, sum.induced, (area, span));
     }
     out
 }
 
-#[expect(
-    clippy::too_many_arguments,
-    reason = "one quadrature point's worth of data"
-)]
 fn add_point(
     out: &mut LoadIntegrals,
-    w: f64,
-    y: f64,
-    section: crate::wing::Section,
+    (w, y): (f64, f64),
+    section: Local,
     ccl: (f64, f64),
     induced: (f64, f64),
-    area: f64,
-    span: f64,
+    (area, span): (f64, f64),
 ) {
     let c = section.chord;
-    let f = section.airfoil;
     // c*cd = c cd0 + cd1 (c cl) + cd2 (c cl)^2 / c
-    let ccd_linear = (c * f.cd0 + f.cd1 * ccl.0, f.cd1 * ccl.1);
+    let ccd_linear = (c * section.cd0 + section.cd1 * ccl.0, section.cd1 * ccl.1);
     let mut profile = Quadratic {
         p0: ccd_linear.0,
         p1: ccd_linear.1,
         p2: 0.0,
     };
     if c > 0.0 {
-        profile.add_product(f.cd2 / c, ccl, ccl);
+        profile.add_product(section.cd2 / c, ccl, ccl);
     }
     for (target, scale) in [
         (&mut out.cdp, w / area),
@@ -158,5 +206,5 @@ fn add_point(
     } else {
         out.left_moment.add_product(-w * y, ccl, (1.0, 0.0));
     }
-    out.mean_lift_slope += w * c * f.lift_slope / area;
+    out.mean_lift_slope += w * c * section.lift_slope / area;
 }

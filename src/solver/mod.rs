@@ -65,14 +65,15 @@ pub enum SolveError {
 #[derive(Debug, Clone)]
 pub struct Prepared {
     geometry: Geometry,
-    map: SpanMap,
     per_alpha: Vec<f64>,
     at_zero: Vec<f64>,
     integrals: LoadIntegrals,
-    wing: Wing,
+    /// Local values at the collocation points, left tip to right tip.
+    points: Vec<spanwise::LinearPoint>,
+    /// Local values at the wing's stations.
+    station_points: Vec<spanwise::LinearPoint>,
+    first_stall: Option<FirstStall>,
     warnings: Vec<String>,
-    /// First stall as `(alpha in radians, y)`: independent of alpha, so found once here.
-    stall: Option<(f64, f64)>,
 }
 
 /// Builds and factors the collocation system of a wing.
@@ -94,11 +95,10 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         half_span: 0.5 * geometry.span,
     };
     let thetas = fourier::collocation_angles(n);
-    let sections = crate::wing::Sections::of(wing);
     let mut mu = Vec::with_capacity(n);
     let mut rhs = Vec::with_capacity(n);
     for &theta in &thetas {
-        let s = sections.at(map.y(theta));
+        let s = wing.section_at(map.y(theta));
         mu.push(4.0 * geometry.span / (s.airfoil.lift_slope * s.chord));
         rhs.push(s.twist - s.airfoil.alpha_zero_lift_deg.to_radians());
     }
@@ -106,12 +106,8 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     for span in &control_spans {
         fourier::add_control_shift(map, &thetas, span, &mut rhs);
     }
-    let responses = if wing.symmetric {
-        fourier::responses_mirrored(&thetas, &mu, &rhs)
-    } else {
-        fourier::responses(fourier::matrix(&thetas, &mu), &rhs)
-    }
-    .ok_or(SolveError::Singular)?;
+    let responses = fourier::solve_collocation(&thetas, &mu, &rhs, wing.symmetric)
+        .ok_or(SolveError::Singular)?;
     let edges: Vec<f64> = control_spans
         .iter()
         .flat_map(|s| [s.y_from, s.y_to])
@@ -125,46 +121,23 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         &edges,
     );
     let warnings = validate::warnings(wing, &geometry);
-    let evaluator = spanwise::Evaluator::new(wing, map, 1.0, 1.0);
-    let stall = critical_section(&evaluator, &thetas, &responses);
-    Ok(Prepared {
+    let pair = (responses.at_zero.as_slice(), responses.per_alpha.as_slice());
+    let points = spanwise::linear_points(wing, map, geometry.mean_chord, pair, &thetas);
+    let station_thetas: Vec<f64> = wing.stations.iter().map(|s| map.theta(s.y)).collect();
+    let station_points =
+        spanwise::linear_points(wing, map, geometry.mean_chord, pair, &station_thetas);
+    let mut prepared = Prepared {
         geometry,
-        map,
         per_alpha: responses.per_alpha,
         at_zero: responses.at_zero,
         integrals,
-        wing: wing.clone(),
+        points,
+        station_points,
+        first_stall: None,
         warnings,
-        stall,
-    })
-}
-
-/// Linear critical-section estimate: each output point's cl is linear in alpha, so the
-/// alpha (radians) at which it reaches cl_max is found exactly; the least of these is the
-/// first stall, returned as `(alpha, y)`. Right-half points win ties, so a mirrored wing
-/// reports y >= 0.
-fn critical_section(
-    evaluator: &spanwise::Evaluator,
-    thetas: &[f64],
-    responses: &fourier::Responses,
-) -> Option<(f64, f64)> {
-    let mut ratios = vec![0.0; thetas.len()];
-    let mut best: Option<(f64, f64)> = None;
-    for &theta in thetas.iter().rev() {
-        let parts =
-            evaluator.cl_parts(&responses.per_alpha, &responses.at_zero, theta, &mut ratios);
-        let Some((slope, zero, cl_max, y)) = parts else {
-            continue;
-        };
-        if slope <= 1e-9 {
-            continue;
-        }
-        let alpha = (cl_max - zero) / slope;
-        if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
-            best = Some((alpha, y));
-        }
-    }
-    best
+    };
+    prepared.first_stall = prepared.find_first_stall();
+    Ok(prepared)
 }
 
 /// Solves a wing at a condition with default options.
@@ -275,12 +248,6 @@ impl Prepared {
     #[must_use]
     pub const fn geometry(&self) -> &Geometry {
         &self.geometry
-    }
-
-    /// The spanwise integrals as polynomials in alpha (for checks and reports).
-    #[must_use]
-    pub const fn integrals(&self) -> &LoadIntegrals {
-        &self.integrals
     }
 
     /// Lift-curve slope dCL/dalpha, per radian.
@@ -396,22 +363,8 @@ impl Prepared {
             root_bending_moment: q * root_bending_per_q,
             left_root_bending_moment: q * self.integrals.left_moment.at(alpha),
         };
-        let evaluator = spanwise::Evaluator::new(&self.wing, self.map, g.area / g.span, v);
-        let mut ratios = vec![0.0; fourier.len()];
-        let spanwise = fourier::collocation_angles(fourier.len())
-            .into_iter()
-            .map(|theta| evaluator.at_theta(&fourier, theta, alpha, &mut ratios))
-            .collect::<Vec<_>>();
-        let stations = self
-            .wing
-            .stations
-            .iter()
-            .map(|s| SpanPoint {
-                // exactly the station's y, not y(theta(y)) with its rounding
-                y: s.y,
-                ..evaluator.at_theta(&fourier, self.map.theta(s.y), alpha, &mut ratios)
-            })
-            .collect();
+        let spanwise: Vec<SpanPoint> = self.points.iter().map(|p| p.at(alpha, v)).collect();
+        let stations = self.station_points.iter().map(|p| p.at(alpha, v)).collect();
         let mean_slope = self.integrals.mean_lift_slope;
         let cl_alpha = self.cl_alpha();
         let mut warnings = self.warnings.clone();
@@ -428,17 +381,35 @@ impl Prepared {
                 f64::NAN
             },
             root_bending_per_q,
-            first_stall: self.stall.map(|(alpha, y)| FirstStall {
-                y,
-                cl_wing: self.coefficients(alpha).cl,
-                alpha_deg: alpha.to_degrees(),
-            }),
+            first_stall: self.first_stall,
             spanwise,
             stations,
             flight,
             terms: self.per_alpha.len(),
             warnings,
         }
+    }
+
+    /// Linear critical-section estimate: each output point's cl is linear in alpha, so the
+    /// alpha at which it reaches cl_max is found exactly; the least of these is the first
+    /// stall. Right-half points win ties, so a symmetric wing reports y >= 0.
+    fn find_first_stall(&self) -> Option<FirstStall> {
+        let mut best: Option<(f64, f64)> = None;
+        for p in self.points.iter().rev() {
+            let (zero, slope) = p.cl;
+            if slope <= 1e-9 {
+                continue;
+            }
+            let alpha = (p.cl_max - zero) / slope;
+            if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
+                best = Some((alpha, p.y));
+            }
+        }
+        best.map(|(alpha, y)| FirstStall {
+            y,
+            cl_wing: self.coefficients(alpha).cl,
+            alpha_deg: alpha.to_degrees(),
+        })
     }
 }
 

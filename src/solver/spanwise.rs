@@ -1,7 +1,10 @@
 //! Local values along the span from the sine-series coefficients.
+//!
+//! Every local value is linear in alpha (the A_n are), so each output point is evaluated once
+//! per geometry as a value at zero alpha plus a slope, and a solve only combines the two.
 
 use super::controls::ControlSpan;
-use super::fourier::{series_at, series_pair_at, SpanMap};
+use super::fourier::{pair_sums, SpanMap};
 use crate::wing::Wing;
 
 /// Local values at one spanwise point.
@@ -25,80 +28,99 @@ pub struct SpanPoint {
     pub cl_ratio: f64,
 }
 
-/// Evaluates local values for one wing and speed.
-pub struct Evaluator {
-    map: SpanMap,
-    mean_chord: f64,
-    speed: f64,
-    controls: Vec<ControlSpan>,
-    sections: crate::wing::Sections,
+/// (value at zero alpha, value per radian of alpha).
+type Linear = (f64, f64);
+
+fn at(value: Linear, alpha: f64) -> f64 {
+    value.0 + alpha * value.1
 }
 
-impl Evaluator {
-    pub fn new(wing: &Wing, map: SpanMap, mean_chord: f64, speed: f64) -> Self {
-        Self {
-            map,
-            mean_chord,
-            speed,
-            controls: super::controls::spans(&wing.controls),
-            sections: crate::wing::Sections::of(wing),
-        }
-    }
+/// One output point with its local values as linear functions of alpha.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct LinearPoint {
+    /// Position, m.
+    pub y: f64,
+    /// Chord, m.
+    pub chord: f64,
+    /// Local section cl_max.
+    pub cl_max: f64,
+    /// Section lift coefficient.
+    pub cl: Linear,
+    /// c*cl/c_mean.
+    pub span_load: Linear,
+    /// Induced angle, radians.
+    pub alpha_i: Linear,
+    /// Circulation per unit airspeed, m.
+    pub gamma_per_speed: Linear,
+}
 
-    /// Local values at angle `theta` for coefficients `a`.
-    ///
-    /// cl = 2 Gamma/(V c) = 4 b sum A_n sin(n theta) / c where the chord is non-zero; at a
-    /// pointed tip the section's own lift curve gives the limit,
-    /// cl = a0 (alpha_eff) with alpha_eff from the lifting-line equation.
-    /// `alpha` (radians) is the reference angle that `a` belongs to, used only at a pointed tip.
-    /// `ratios` is scratch space of the series' length.
-    pub fn at_theta(&self, a: &[f64], theta: f64, alpha: f64, ratios: &mut [f64]) -> SpanPoint {
-        let (load, induced) = series_at(a, theta, ratios);
-        let y = self.map.y(theta);
-        let section = self.sections.at(y);
-        let span = 2.0 * self.map.half_span;
-        let ccl = 4.0 * span * load;
-        let cl = if section.chord > 1e-9 {
-            ccl / section.chord
-        } else {
-            let shift: f64 = self
-                .controls
-                .iter()
-                .filter(|c| (c.y_from..=c.y_to).contains(&y))
-                .map(|c| c.alpha_increase)
-                .sum();
-            let zero_lift = section.airfoil.alpha_zero_lift_deg.to_radians();
-            section.airfoil.lift_slope * (alpha + section.twist - zero_lift + shift - induced)
-        };
-        let cl_max = section.airfoil.cl_max;
+impl LinearPoint {
+    /// The local values at `alpha` (radians) and airspeed `speed` (m/s).
+    #[must_use]
+    pub fn at(&self, alpha: f64, speed: f64) -> SpanPoint {
+        let cl = at(self.cl, alpha);
         SpanPoint {
-            y,
-            chord: section.chord,
+            y: self.y,
+            chord: self.chord,
             cl,
-            span_load: ccl / self.mean_chord,
-            alpha_i_deg: induced.to_degrees(),
-            gamma: 2.0 * span * self.speed * load,
-            cl_max,
-            cl_ratio: cl / cl_max,
+            span_load: at(self.span_load, alpha),
+            alpha_i_deg: at(self.alpha_i, alpha).to_degrees(),
+            gamma: speed * at(self.gamma_per_speed, alpha),
+            cl_max: self.cl_max,
+            cl_ratio: cl / self.cl_max,
         }
     }
+}
 
-    /// The section cl at `theta` split as `(d cl / d alpha, cl at zero alpha, cl_max, y)` from
-    /// the two responses; `None` where the chord is zero (a pointed tip).
-    pub fn cl_parts(
-        &self,
-        per_alpha: &[f64],
-        at_zero: &[f64],
-        theta: f64,
-        ratios: &mut [f64],
-    ) -> Option<(f64, f64, f64, f64)> {
-        let y = self.map.y(theta);
-        let section = self.sections.at(y);
-        if section.chord <= 1e-9 {
-            return None;
-        }
-        let [(slope, _), (zero, _)] = series_pair_at(per_alpha, at_zero, theta, ratios);
-        let scale = 8.0 * self.map.half_span / section.chord;
-        Some((scale * slope, scale * zero, section.airfoil.cl_max, y))
-    }
+/// The output points at angles `thetas` for the responses `at_zero` and `per_alpha`.
+///
+/// cl = 2 Gamma/(V c) = 4 b sum A_n sin(n theta) / c where the chord is non-zero; at a
+/// pointed tip the section's own lift curve gives the limit, cl = a0 alpha_eff with
+/// alpha_eff = alpha + twist - alpha_L0 + control shift - alpha_i from the lifting-line
+/// equation (only the alpha and alpha_i terms belong to the slope).
+#[must_use]
+pub fn linear_points(
+    wing: &Wing,
+    map: SpanMap,
+    mean_chord: f64,
+    (at_zero, per_alpha): (&[f64], &[f64]),
+    thetas: &[f64],
+) -> Vec<LinearPoint> {
+    let span = 2.0 * map.half_span;
+    let controls: Vec<ControlSpan> = super::controls::spans(&wing.controls);
+    let angles: Vec<(f64, f64)> = thetas.iter().map(|t| (t.cos(), t.sin())).collect();
+    let sums = pair_sums(at_zero, per_alpha, &angles);
+    thetas
+        .iter()
+        .zip(&sums)
+        .map(|(&theta, sum)| {
+            let y = map.y(theta);
+            let section = wing.section_at(y);
+            let ccl = (4.0 * span * sum.load.0, 4.0 * span * sum.load.1);
+            let cl = if section.chord > 1e-9 {
+                (ccl.0 / section.chord, ccl.1 / section.chord)
+            } else {
+                let shift: f64 = controls
+                    .iter()
+                    .filter(|c| (c.y_from..=c.y_to).contains(&y))
+                    .map(|c| c.alpha_increase)
+                    .sum();
+                let zero_lift = section.airfoil.alpha_zero_lift_deg.to_radians();
+                let a0 = section.airfoil.lift_slope;
+                (
+                    a0 * (section.twist - zero_lift + shift - sum.induced.0),
+                    a0 * (1.0 - sum.induced.1),
+                )
+            };
+            LinearPoint {
+                y,
+                chord: section.chord,
+                cl_max: section.airfoil.cl_max,
+                cl,
+                span_load: (ccl.0 / mean_chord, ccl.1 / mean_chord),
+                alpha_i: sum.induced,
+                gamma_per_speed: (2.0 * span * sum.load.0, 2.0 * span * sum.load.1),
+            }
+        })
+        .collect()
 }

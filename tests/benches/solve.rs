@@ -1,96 +1,88 @@
-//! Solver speed: one solve at the default term count and at 200 terms, and a 101-point alpha
-//! sweep after one factorisation (against 101 full solves). Results in docs/performance.md.
+//! Solver benchmarks (criterion): `cargo bench --bench solve`. Results and the machine they
+//! were taken on are in docs/performance.md.
 
-use std::collections::BTreeMap;
+#[path = "../common/mod.rs"]
+mod common;
+
 use std::hint::black_box;
 
-use criterion::{criterion_group, criterion_main, Criterion};
-use gammaline::solver::{self, Options, DEFAULT_TERMS};
-use gammaline::wing::{Airfoil, Condition, Control, ControlKind, Station, Wing};
+use criterion::{criterion_group, criterion_main, BenchmarkId, Criterion};
+use gammaline::solver::{prepare, Options, DEFAULT_TERMS};
+use gammaline::wing::Wing;
 
-/// A 10-station tapered wing with washout, two airfoils and an aileron (invented numbers).
+/// A 10-station tapered wing (AR about 9, taper 0.4) with washout, a second airfoil blended in
+/// toward the tip, profile drag and an aileron: the work a real file gives the solver.
 fn ten_station_wing() -> Wing {
-    let stations = (0..10)
+    let mut w = common::wing(Vec::new(), common::with_drag(0.009, 0.0, 0.0055));
+    let tip = gammaline::wing::Airfoil {
+        lift_slope: 5.9,
+        alpha_zero_lift_deg: -1.5,
+        cl_max: 1.3,
+        ..common::with_drag(0.0085, 0.0, 0.006)
+    };
+    w.airfoils.insert("tip".into(), tip);
+    w.stations = (0..10)
         .map(|i| {
             let eta = f64::from(i) / 9.0;
-            Station {
-                y: 5.0 * eta,
-                chord: 1.6 - 0.9 * eta,
-                twist_deg: -2.5 * eta,
-                airfoil: if i < 5 { "inner" } else { "outer" }.to_string(),
-                x_le: 0.2 * eta,
-                z: 0.0,
+            let mut s = common::station(1.6 * eta, 0.30 * (1.0 - 0.6 * eta), -2.0 * eta);
+            if i >= 7 {
+                s.airfoil = "tip".into();
             }
+            s
         })
         .collect();
-    let foil = |slope, zero_lift| Airfoil {
-        lift_slope: slope,
-        alpha_zero_lift_deg: zero_lift,
-        cl_max: 1.4,
-        cd0: 0.0085,
-        cd1: 0.0,
-        cd2: 0.006,
-    };
-    Wing {
-        name: "bench".into(),
-        symmetric: true,
-        stations,
-        airfoils: BTreeMap::from([
-            ("inner".to_string(), foil(6.2, -2.2)),
-            ("outer".to_string(), foil(6.0, -1.5)),
-        ]),
-        controls: vec![Control {
-            name: "aileron".into(),
-            kind: ControlKind::Aileron,
-            y_inner: 3.2,
-            y_outer: 4.7,
-            chord_fraction: 0.25,
-            deflection_deg: 5.0,
-            effectiveness: None,
-        }],
-        condition: Condition {
-            alpha_deg: 4.0,
-            ..Condition::default()
-        },
-    }
+    w.controls.push(common::aileron(1.05, 1.50, 0.25, 5.0));
+    w
 }
 
 fn benches(c: &mut Criterion) {
     let wing = ten_station_wing();
-    let condition = wing.condition;
-    c.bench_function("solve, 10 stations, default terms", |b| {
-        b.iter(|| solver::solve(black_box(&wing), &condition, Options::default()))
+    let condition = common::at_alpha(4.0);
+    let mut group = c.benchmark_group("solve");
+    for terms in [DEFAULT_TERMS, 200] {
+        group.bench_with_input(BenchmarkId::new("full", terms), &terms, |b, &terms| {
+            b.iter(|| {
+                let p = prepare(black_box(&wing), Options { terms }).expect("solvable");
+                p.solve(black_box(&condition)).expect("solves")
+            });
+        });
+    }
+    group.bench_function(BenchmarkId::new("prepare", DEFAULT_TERMS), |b| {
+        b.iter(|| prepare(black_box(&wing), Options::default()).expect("solvable"));
     });
-    c.bench_function("solve, 10 stations, 200 terms", |b| {
-        b.iter(|| solver::solve(black_box(&wing), &condition, Options { terms: 200 }))
+    let prepared = prepare(&wing, Options::default()).expect("solvable");
+    group.bench_function(BenchmarkId::new("solution_only", DEFAULT_TERMS), |b| {
+        b.iter(|| prepared.solve(black_box(&condition)).expect("solves"));
     });
-    let alphas: Vec<f64> = (0..101).map(|i| -5.0 + 0.2 * f64::from(i)).collect();
-    c.bench_function("sweep, 101 alphas, one factorisation", |b| {
-        b.iter(|| {
-            let prepared = solver::prepare(black_box(&wing), Options::default()).expect("solves");
-            prepared.sweep(&alphas)
-        })
-    });
-    c.bench_function("sweep, 101 full solves (for contrast)", |b| {
-        b.iter(|| {
-            alphas
-                .iter()
-                .map(|&alpha_deg| {
-                    let c = Condition {
-                        alpha_deg,
-                        ..condition
-                    };
-                    solver::solve(black_box(&wing), &c, Options::default())
-                })
-                .count()
-        })
-    });
-    let _ = DEFAULT_TERMS;
+    let alphas: Vec<f64> = (0..101).map(|i| -5.0 + 0.15 * f64::from(i)).collect();
+    group.bench_function(
+        BenchmarkId::new("sweep_101_prepare_once", DEFAULT_TERMS),
+        |b| {
+            b.iter(|| {
+                let p = prepare(black_box(&wing), Options::default()).expect("solvable");
+                p.sweep(black_box(&alphas))
+            });
+        },
+    );
+    group.bench_function(
+        BenchmarkId::new("sweep_101_full_solves", DEFAULT_TERMS),
+        |b| {
+            b.iter(|| {
+                alphas
+                    .iter()
+                    .map(|&alpha_deg| {
+                        let p = prepare(black_box(&wing), Options::default()).expect("solvable");
+                        p.solve(&common::at_alpha(alpha_deg))
+                            .expect("solves")
+                            .coefficients
+                            .cl
+                    })
+                    .sum::<f64>()
+            });
+        },
+    );
+    group.finish();
 }
 
-criterion_group! {
-    name = solve;
-    config = Criterion::default().sample_size(30).measurement_time(std::time::Duration::from_secs(3));
-    targets = benches
-}
+criterion_group!(solve, benches);
 criterion_main!(solve);
