@@ -85,15 +85,109 @@ pub struct PairSums {
     pub induced: (f64, f64),
 }
 
-/// Angles evaluated side by side: the Chebyshev recurrence is a serial chain, so running
-/// several independent chains at once keeps the floating-point units busy.
-const LANES: usize = 4;
+/// Angles evaluated side by side for four weighted sums: the Chebyshev recurrence is a serial
+/// chain, so running several independent chains at once keeps the floating-point units busy.
+/// (More lanes would not fit the accumulators in the registers.)
+pub const PAIR_LANES: usize = 4;
 
-/// [`series_at`] for both responses at many angles, given as `(cos theta, sin theta)`, in one
-/// recurrence per angle. The sums are formed in the same order as [`series_at`].
+/// Angles side by side for two weighted sums, which leave room for more chains.
+pub const LOAD_LANES: usize = 4;
+
+/// Weighted Chebyshev sums at one angle, split by the parity of n:
+/// `odd[k] = sum over odd n of w_n[k] U_{n-1}(cos theta)`, `even[k]` likewise over even n.
+///
+/// Since U_{n-1}(-x) = (-1)^(n-1) U_{n-1}(x), the same sums at the mirrored angle
+/// pi - theta are `odd - even`: one recurrence serves both halves of a mirrored wing.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ParitySums<const K: usize> {
+    /// Sums over odd n.
+    pub odd: [f64; K],
+    /// Sums over even n.
+    pub even: [f64; K],
+}
+
+impl<const K: usize> ParitySums<K> {
+    /// The sums at theta.
+    #[must_use]
+    pub fn at_angle(&self) -> [f64; K] {
+        std::array::from_fn(|k| self.odd[k] + self.even[k])
+    }
+
+    /// The sums at pi - theta.
+    #[must_use]
+    pub fn at_mirror(&self) -> [f64; K] {
+        std::array::from_fn(|k| self.odd[k] - self.even[k])
+    }
+}
+
+#[inline(always)]
+fn accumulate<const K: usize, const L: usize>(
+    acc: &mut [[f64; L]; K],
+    weights: &[f64; K],
+    u: &[f64; L],
+) {
+    for (sum, &w) in acc.iter_mut().zip(weights) {
+        for (slot, &value) in sum.iter_mut().zip(u) {
+            *slot += w * value;
+        }
+    }
+}
+
+/// One step of the two-term recurrence U_{k+2} = c U_k - U_{k-2}, c = 4x^2 - 2, which follows
+/// from U_{k+1} = 2x U_k - U_{k-1} applied twice: it runs the even-index and the odd-index
+/// U side by side as independent chains, so neither waits for the other.
+#[inline(always)]
+fn advance<const L: usize>(c: &[f64; L], previous: &mut [f64; L], current: &mut [f64; L]) {
+    for lane in 0..L {
+        let next = c[lane] * current[lane] - previous[lane];
+        previous[lane] = current[lane];
+        current[lane] = next;
+    }
+}
+
+/// [`ParitySums`] of `weights` (one row per n = 1..N) at each angle given by its cosine,
+/// `L` angles at a time.
 #[must_use]
-pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> Vec<PairSums> {
-    let weighted: Vec<[f64; 4]> = at_zero
+pub fn parity_sums<const K: usize, const L: usize>(
+    weights: &[[f64; K]],
+    cosines: &[f64],
+) -> Vec<ParitySums<K>> {
+    let mut out = Vec::with_capacity(cosines.len());
+    for chunk in cosines.chunks(L) {
+        let mut x = [0.0; L];
+        x[..chunk.len()].copy_from_slice(chunk);
+        let c: [f64; L] = std::array::from_fn(|lane| 4.0 * x[lane] * x[lane] - 2.0);
+        // U_{n-1} for odd n: U_0 = 1 from U_{-2} = -1; for even n: U_1 = 2x from U_{-1} = 0.
+        let (mut even_previous, mut even_index) = ([-1.0; L], [1.0; L]);
+        let mut odd_previous = [0.0; L];
+        let mut odd_index: [f64; L] = std::array::from_fn(|lane| 2.0 * x[lane]);
+        let mut odd = [[0.0; L]; K];
+        let mut even = [[0.0; L]; K];
+        let mut rows = weights.chunks_exact(2);
+        for pair in rows.by_ref() {
+            accumulate(&mut odd, &pair[0], &even_index);
+            accumulate(&mut even, &pair[1], &odd_index);
+            advance(&c, &mut even_previous, &mut even_index);
+            advance(&c, &mut odd_previous, &mut odd_index);
+        }
+        if let [last] = rows.remainder() {
+            accumulate(&mut odd, last, &even_index);
+        }
+        for lane in 0..chunk.len() {
+            out.push(ParitySums {
+                odd: std::array::from_fn(|k| odd[k][lane]),
+                even: std::array::from_fn(|k| even[k][lane]),
+            });
+        }
+    }
+    out
+}
+
+/// Rows `[A_n(0), dA_n/dalpha, n A_n(0), n dA_n/dalpha]` for [`parity_sums`]: load and
+/// induced angle of both responses.
+#[must_use]
+pub fn pair_weights(at_zero: &[f64], per_alpha: &[f64]) -> Vec<[f64; 4]> {
+    at_zero
         .iter()
         .zip(per_alpha)
         .enumerate()
@@ -101,33 +195,76 @@ pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> V
             let order = (i + 1) as f64;
             [z, p, order * z, order * p]
         })
-        .collect();
-    let mut out = Vec::with_capacity(angles.len());
-    for chunk in angles.chunks(LANES) {
-        let mut two_x = [0.0; LANES];
-        for (slot, &(cos, _)) in two_x.iter_mut().zip(chunk) {
-            *slot = 2.0 * cos;
+        .collect()
+}
+
+impl PairSums {
+    /// The load and induced sums from the four weighted sums of [`pair_weights`], with
+    /// `sin` = sin(theta) turning U_{n-1} into sin(n theta) for the load.
+    #[must_use]
+    pub fn from_sums(sums: [f64; 4], sin: f64) -> Self {
+        Self {
+            load: (sums[0] * sin, sums[1] * sin),
+            induced: (sums[2], sums[3]),
         }
-        let mut previous = [0.0; LANES];
-        let mut current = [1.0; LANES];
-        let mut acc = [[0.0; LANES]; 4];
-        for w in &weighted {
-            for (sum, &coefficient) in acc.iter_mut().zip(w) {
-                for (slot, &u) in sum.iter_mut().zip(&current) {
-                    *slot += coefficient * u;
-                }
-            }
-            for lane in 0..LANES {
-                let next = two_x[lane] * current[lane] - previous[lane];
-                previous[lane] = current[lane];
-                current[lane] = next;
-            }
-        }
-        for (lane, &(_, s)) in chunk.iter().enumerate() {
-            out.push(PairSums {
-                load: (acc[0][lane] * s, acc[1][lane] * s),
-                induced: (acc[2][lane], acc[3][lane]),
-            });
+    }
+}
+
+/// [`series_at`] for both responses at many angles, given as `(cos theta, sin theta)`, in one
+/// recurrence per angle.
+#[must_use]
+pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> Vec<PairSums> {
+    let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
+    parity_sums::<4, PAIR_LANES>(&pair_weights(at_zero, per_alpha), &cosines)
+        .iter()
+        .zip(angles)
+        .map(|(sums, &(_, sin))| PairSums::from_sums(sums.at_angle(), sin))
+        .collect()
+}
+
+/// [`pair_sums`] at each angle and at its mirror pi - theta, from one recurrence per pair.
+#[must_use]
+pub fn mirrored_pair_sums(
+    at_zero: &[f64],
+    per_alpha: &[f64],
+    angles: &[(f64, f64)],
+) -> Vec<(PairSums, PairSums)> {
+    let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
+    parity_sums::<4, PAIR_LANES>(&pair_weights(at_zero, per_alpha), &cosines)
+        .iter()
+        .zip(angles)
+        .map(|(sums, &(_, sin))| {
+            (
+                PairSums::from_sums(sums.at_angle(), sin),
+                PairSums::from_sums(sums.at_mirror(), sin),
+            )
+        })
+        .collect()
+}
+
+/// [`pair_sums`] at a set of angles that come in mirrored pairs (`angles[len - 1 - i]` is
+/// pi minus `angles[i]`, as the collocation angles are): the right half is evaluated and the
+/// left half taken from the same recurrences.
+#[must_use]
+pub fn mirrored_set_sums(
+    at_zero: &[f64],
+    per_alpha: &[f64],
+    angles: &[(f64, f64)],
+) -> Vec<PairSums> {
+    let len = angles.len();
+    let upper = len / 2;
+    let pairs = mirrored_pair_sums(at_zero, per_alpha, &angles[upper..]);
+    let mut out = vec![
+        PairSums {
+            load: (0.0, 0.0),
+            induced: (0.0, 0.0)
+        };
+        len
+    ];
+    for (i, (here, there)) in pairs.into_iter().enumerate() {
+        out[upper + i] = here;
+        if upper + i != len - 1 - (upper + i) {
+            out[len - 1 - (upper + i)] = there;
         }
     }
     out
@@ -163,6 +300,33 @@ pub fn add_control_shift(map: SpanMap, thetas: &[f64], span: &ControlSpan, out: 
         let (lo, hi) = (theta - 0.5 * h, theta + 0.5 * h);
         let overlap = (hi.min(t_to) - lo.max(t_from)).max(0.0);
         *slot += span.alpha_increase * overlap / h;
+    }
+}
+
+/// [`add_control_shift`] for a control on a mirrored wing: the overlap of each right-half cell
+/// with `right` is computed once and the mirrored left cell receives the same overlap times
+/// `left_increase` (the left half's angle increase), so the two halves match exactly.
+/// The controls lie on the right half (y >= 0), so only right-half cells can overlap them.
+pub fn add_mirrored_control_shift(
+    map: SpanMap,
+    thetas: &[f64],
+    right: &ControlSpan,
+    left_increase: f64,
+    out: &mut [f64],
+) {
+    let n = thetas.len();
+    let h = std::f64::consts::PI / (n as f64 + 1.0);
+    let (t_from, t_to) = (map.theta(right.y_from), map.theta(right.y_to));
+    for k in n / 2..n {
+        let (lo, hi) = (thetas[k] - 0.5 * h, thetas[k] + 0.5 * h);
+        let overlap = (hi.min(t_to) - lo.max(t_from)).max(0.0) / h;
+        if overlap == 0.0 {
+            continue;
+        }
+        out[k] += right.alpha_increase * overlap;
+        // At the middle point of an odd count (k = n - 1 - k), the left half of its cell
+        // overlaps the left control by the same amount.
+        out[n - 1 - k] += left_increase * overlap;
     }
 }
 
@@ -204,24 +368,26 @@ pub fn solve_collocation(
     let mu_s: Vec<f64> = rows.iter().zip(mu).map(|(t, m)| m * t.sin()).collect();
     let mut previous = vec![0.0; odd_count];
     let mut current = vec![1.0; odd_count];
-    let mut odd = DMatrix::zeros(odd_count, odd_count);
-    let mut even = DMatrix::zeros(pairs, pairs);
+    let mut odd = vec![0.0; odd_count * odd_count];
+    let mut even = vec![0.0; pairs * pairs];
     for j in 0..n {
         let order = (j + 1) as f64;
-        let (column, used) = if j % 2 == 0 {
-            (odd.column_mut(j / 2), odd_count)
+        let column = if j % 2 == 0 {
+            &mut odd[(j / 2) * odd_count..(j / 2 + 1) * odd_count]
         } else {
-            (even.column_mut(j / 2), pairs)
+            &mut even[(j / 2) * pairs..(j / 2 + 1) * pairs]
         };
-        for (slot, (&u, &ms)) in column.into_iter().zip(current.iter().zip(&mu_s)).take(used) {
+        for ((slot, &u), &ms) in column.iter_mut().zip(&current).zip(&mu_s) {
             *slot = u * (ms + order);
         }
-        for k in 0..odd_count {
-            let next = two_x[k] * current[k] - previous[k];
-            previous[k] = current[k];
-            current[k] = next;
+        for ((p, c), &tx) in previous.iter_mut().zip(current.iter_mut()).zip(&two_x) {
+            let next = tx * *c - *p;
+            *p = *c;
+            *c = next;
         }
     }
+    let odd = DMatrix::from_vec(odd_count, odd_count, odd);
+    let even = DMatrix::from_vec(pairs, pairs, even);
     let mirror = |k: usize| at_zero_rhs[n - 1 - k];
     let odd_rhs: Vec<f64> = (0..odd_count)
         .map(|k| {
@@ -238,7 +404,8 @@ pub fn solve_collocation(
     let odd_lu = odd.lu();
     let odd_alpha = odd_lu.solve(&DVector::from_element(odd_count, 1.0))?;
     let odd_zero = odd_lu.solve(&DVector::from_column_slice(&odd_rhs))?;
-    let even_zero = if pairs > 0 {
+    // A wing with no antisymmetric input (no deflected aileron) has no even terms at all.
+    let even_zero = if even_rhs.iter().any(|&v| v != 0.0) {
         even.lu().solve(&DVector::from_column_slice(&even_rhs))?
     } else {
         DVector::zeros(0)

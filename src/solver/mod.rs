@@ -13,7 +13,7 @@ use std::f64::consts::PI;
 
 use crate::atmosphere;
 use crate::wing::validate::{self, Problem};
-use crate::wing::{Condition, Geometry, Wing};
+use crate::wing::{Condition, Geometry, Section, Sections, Wing};
 use fourier::SpanMap;
 use integrals::LoadIntegrals;
 
@@ -90,21 +90,48 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         return Err(SolveError::Terms(n));
     }
     let geometry = Geometry::of(wing);
+    let sections = Sections::of(wing);
     let map = SpanMap {
         y_mid: geometry.y_mid,
         half_span: 0.5 * geometry.span,
     };
     let thetas = fourier::collocation_angles(n);
-    let mut mu = Vec::with_capacity(n);
-    let mut rhs = Vec::with_capacity(n);
-    for &theta in &thetas {
-        let s = wing.section_at(map.y(theta));
-        mu.push(4.0 * geometry.span / (s.airfoil.lift_slope * s.chord));
-        rhs.push(s.twist - s.airfoil.alpha_zero_lift_deg.to_radians());
+    let angles: Vec<(f64, f64)> = thetas
+        .iter()
+        .map(|t| {
+            let (sin, cos) = t.sin_cos();
+            (cos, sin)
+        })
+        .collect();
+    let mut ys: Vec<f64> = angles.iter().map(|&(cos, _)| map.y_at_cos(cos)).collect();
+    if wing.symmetric {
+        mirror_positions(&mut ys);
     }
+    let point_sections: Vec<Section> = ys.iter().map(|&y| sections.at(y)).collect();
+    let mu: Vec<f64> = point_sections
+        .iter()
+        .map(|s| 4.0 * geometry.span / (s.airfoil.lift_slope * s.chord))
+        .collect();
+    let mut rhs: Vec<f64> = point_sections
+        .iter()
+        .map(|s| s.twist - s.airfoil.alpha_zero_lift_deg.to_radians())
+        .collect();
     let control_spans = controls::spans(&wing.controls);
-    for span in &control_spans {
-        fourier::add_control_shift(map, &thetas, span, &mut rhs);
+    if wing.symmetric {
+        // Each control's left half (every odd entry) is the mirror of its right half.
+        for pair in control_spans.chunks_exact(2) {
+            fourier::add_mirrored_control_shift(
+                map,
+                &thetas,
+                &pair[0],
+                pair[1].alpha_increase,
+                &mut rhs,
+            );
+        }
+    } else {
+        for span in &control_spans {
+            fourier::add_control_shift(map, &thetas, span, &mut rhs);
+        }
     }
     let responses = fourier::solve_collocation(&thetas, &mu, &rhs, wing.symmetric)
         .ok_or(SolveError::Singular)?;
@@ -112,20 +139,32 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         .iter()
         .flat_map(|s| [s.y_from, s.y_to])
         .collect();
-    let integrals = integrals::integrate(
-        wing,
-        map,
-        geometry.area,
-        &responses.per_alpha,
-        &responses.at_zero,
-        &edges,
-    );
-    let warnings = validate::warnings(wing, &geometry);
     let pair = (responses.at_zero.as_slice(), responses.per_alpha.as_slice());
-    let points = spanwise::linear_points(wing, map, geometry.mean_chord, pair, &thetas);
-    let station_thetas: Vec<f64> = wing.stations.iter().map(|s| map.theta(s.y)).collect();
-    let station_points =
-        spanwise::linear_points(wing, map, geometry.mean_chord, pair, &station_thetas);
+    let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
+    let warnings = validate::warnings(wing, &geometry);
+    let scales = (geometry.span, geometry.mean_chord);
+    let sums = if wing.symmetric {
+        fourier::mirrored_set_sums(pair.0, pair.1, &angles)
+    } else {
+        fourier::pair_sums(pair.0, pair.1, &angles)
+    };
+    let points = spanwise::linear_points(&ys, &point_sections, &sums, scales, &control_spans);
+    let station_ys: Vec<f64> = wing.stations.iter().map(|s| s.y).collect();
+    let station_angles: Vec<(f64, f64)> = station_ys
+        .iter()
+        .map(|&y| {
+            let (sin, cos) = map.theta(y).sin_cos();
+            (cos, sin)
+        })
+        .collect();
+    let station_sums = fourier::pair_sums(pair.0, pair.1, &station_angles);
+    let station_points = spanwise::linear_points(
+        &station_ys,
+        sections.rows(),
+        &station_sums,
+        scales,
+        &control_spans,
+    );
     let mut prepared = Prepared {
         geometry,
         per_alpha: responses.per_alpha,
@@ -138,6 +177,19 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     };
     prepared.first_stall = prepared.find_first_stall();
     Ok(prepared)
+}
+
+/// Makes the collocation positions of a mirrored wing exactly antisymmetric (the left half
+/// the negative of the right, the middle point at the root), so its symmetric inputs carry no
+/// rounding-level antisymmetric part and a wing with no deflected aileron has no even terms.
+fn mirror_positions(ys: &mut [f64]) {
+    let n = ys.len();
+    for i in 0..n / 2 {
+        ys[i] = -ys[n - 1 - i];
+    }
+    if n % 2 == 1 {
+        ys[n / 2] = 0.0;
+    }
 }
 
 /// Solves a wing at a condition with default options.

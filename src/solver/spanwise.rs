@@ -4,8 +4,8 @@
 //! per geometry as a value at zero alpha plus a slope, and a solve only combines the two.
 
 use super::controls::ControlSpan;
-use super::fourier::{pair_sums, SpanMap};
-use crate::wing::Wing;
+use super::fourier::PairSums;
+use crate::wing::Section;
 
 /// Local values at one spanwise point.
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -72,55 +72,58 @@ impl LinearPoint {
     }
 }
 
-/// The output points at angles `thetas` for the responses `at_zero` and `per_alpha`.
+/// One output point at `y` with section `section`, from the series sums there.
 ///
 /// cl = 2 Gamma/(V c) = 4 b sum A_n sin(n theta) / c where the chord is non-zero; at a
 /// pointed tip the section's own lift curve gives the limit, cl = a0 alpha_eff with
 /// alpha_eff = alpha + twist - alpha_L0 + control shift - alpha_i from the lifting-line
 /// equation (only the alpha and alpha_i terms belong to the slope).
 #[must_use]
+pub fn linear_point(
+    (y, section): (f64, &Section),
+    sum: &PairSums,
+    (span, mean_chord): (f64, f64),
+    controls: &[ControlSpan],
+) -> LinearPoint {
+    let ccl = (4.0 * span * sum.load.0, 4.0 * span * sum.load.1);
+    let cl = if section.chord > 1e-9 {
+        (ccl.0 / section.chord, ccl.1 / section.chord)
+    } else {
+        let shift: f64 = controls
+            .iter()
+            .filter(|c| (c.y_from..=c.y_to).contains(&y))
+            .map(|c| c.alpha_increase)
+            .sum();
+        let zero_lift = section.airfoil.alpha_zero_lift_deg.to_radians();
+        let a0 = section.airfoil.lift_slope;
+        (
+            a0 * (section.twist - zero_lift + shift - sum.induced.0),
+            a0 * (1.0 - sum.induced.1),
+        )
+    };
+    LinearPoint {
+        y,
+        chord: section.chord,
+        cl_max: section.airfoil.cl_max,
+        cl,
+        span_load: (ccl.0 / mean_chord, ccl.1 / mean_chord),
+        alpha_i: sum.induced,
+        gamma_per_speed: (2.0 * span * sum.load.0, 2.0 * span * sum.load.1),
+    }
+}
+
+/// [`linear_point`] at each of `ys` with its section and series sums.
+#[must_use]
 pub fn linear_points(
-    wing: &Wing,
-    map: SpanMap,
-    mean_chord: f64,
-    (at_zero, per_alpha): (&[f64], &[f64]),
-    thetas: &[f64],
+    ys: &[f64],
+    sections: &[Section],
+    sums: &[PairSums],
+    scales: (f64, f64),
+    controls: &[ControlSpan],
 ) -> Vec<LinearPoint> {
-    let span = 2.0 * map.half_span;
-    let controls: Vec<ControlSpan> = super::controls::spans(&wing.controls);
-    let angles: Vec<(f64, f64)> = thetas.iter().map(|t| (t.cos(), t.sin())).collect();
-    let sums = pair_sums(at_zero, per_alpha, &angles);
-    thetas
-        .iter()
-        .zip(&sums)
-        .map(|(&theta, sum)| {
-            let y = map.y(theta);
-            let section = wing.section_at(y);
-            let ccl = (4.0 * span * sum.load.0, 4.0 * span * sum.load.1);
-            let cl = if section.chord > 1e-9 {
-                (ccl.0 / section.chord, ccl.1 / section.chord)
-            } else {
-                let shift: f64 = controls
-                    .iter()
-                    .filter(|c| (c.y_from..=c.y_to).contains(&y))
-                    .map(|c| c.alpha_increase)
-                    .sum();
-                let zero_lift = section.airfoil.alpha_zero_lift_deg.to_radians();
-                let a0 = section.airfoil.lift_slope;
-                (
-                    a0 * (section.twist - zero_lift + shift - sum.induced.0),
-                    a0 * (1.0 - sum.induced.1),
-                )
-            };
-            LinearPoint {
-                y,
-                chord: section.chord,
-                cl_max: section.airfoil.cl_max,
-                cl,
-                span_load: (ccl.0 / mean_chord, ccl.1 / mean_chord),
-                alpha_i: sum.induced,
-                gamma_per_speed: (2.0 * span * sum.load.0, 2.0 * span * sum.load.1),
-            }
-        })
+    ys.iter()
+        .zip(sections)
+        .zip(sums)
+        .map(|((&y, section), sum)| linear_point((y, section), sum, scales, controls))
         .collect()
 }

@@ -6,8 +6,10 @@ pub mod file;
 mod fingerprint;
 pub mod geometry;
 mod model;
+pub mod sections;
 pub mod validate;
 
 pub use fingerprint::fingerprint;
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};
+pub use sections::Sections;

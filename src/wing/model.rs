@@ -126,6 +126,28 @@ pub struct Section {
     pub x_le: f64,
 }
 
+impl Section {
+    /// Linear blend, fraction `t` of the way from `self` to `other` (the rule between stations).
+    #[must_use]
+    pub fn lerp(&self, other: &Self, t: f64) -> Self {
+        let mix = |p: f64, q: f64| p + (q - p) * t;
+        let (fa, fb) = (&self.airfoil, &other.airfoil);
+        Self {
+            chord: mix(self.chord, other.chord),
+            twist: mix(self.twist, other.twist),
+            x_le: mix(self.x_le, other.x_le),
+            airfoil: Airfoil {
+                lift_slope: mix(fa.lift_slope, fb.lift_slope),
+                alpha_zero_lift_deg: mix(fa.alpha_zero_lift_deg, fb.alpha_zero_lift_deg),
+                cl_max: mix(fa.cl_max, fb.cl_max),
+                cd0: mix(fa.cd0, fb.cd0),
+                cd1: mix(fa.cd1, fb.cd1),
+                cd2: mix(fa.cd2, fb.cd2),
+            },
+        }
+    }
+}
+
 /// Airfoil properties blended linearly between two stations' airfoils.
 pub type BlendedAirfoil = Airfoil;
 
@@ -169,21 +191,17 @@ impl Wing {
             .clamp(1, stations.len() - 1);
         let (a, b) = (&stations[upper - 1], &stations[upper]);
         let t = ((y - a.y) / (b.y - a.y)).clamp(0.0, 1.0);
-        let lerp = |p: f64, q: f64| p + (q - p) * t;
-        let fa = self.airfoil_or_default(&a.airfoil);
-        let fb = self.airfoil_or_default(&b.airfoil);
+        self.station_section(a).lerp(&self.station_section(b), t)
+    }
+
+    /// The section at a station itself, its airfoil looked up by key.
+    #[must_use]
+    pub fn station_section(&self, station: &Station) -> Section {
         Section {
-            chord: lerp(a.chord, b.chord),
-            twist: lerp(a.twist_deg, b.twist_deg).to_radians(),
-            x_le: lerp(a.x_le, b.x_le),
-            airfoil: Airfoil {
-                lift_slope: lerp(fa.lift_slope, fb.lift_slope),
-                alpha_zero_lift_deg: lerp(fa.alpha_zero_lift_deg, fb.alpha_zero_lift_deg),
-                cl_max: lerp(fa.cl_max, fb.cl_max),
-                cd0: lerp(fa.cd0, fb.cd0),
-                cd1: lerp(fa.cd1, fb.cd1),
-                cd2: lerp(fa.cd2, fb.cd2),
-            },
+            chord: station.chord,
+            twist: station.twist_deg.to_radians(),
+            x_le: station.x_le,
+            airfoil: self.airfoil_or_default(&station.airfoil),
         }
     }
 
