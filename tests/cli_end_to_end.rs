@@ -260,6 +260,58 @@ fn bad_flags_exit_2_without_output() {
     }
 }
 
+/// Numbers printed as a minus sign before nothing but zeros (`-0.00000`, `-0`, `-0.0e0`).
+fn negative_zeros(text: &str) -> Vec<String> {
+    text.split(|c: char| c.is_whitespace() || matches!(c, ',' | ':' | '[' | ']' | '(' | ')'))
+        .filter_map(|token| token.strip_prefix('-'))
+        .filter(|rest| {
+            let mantissa = rest.split(['e', 'E']).next().unwrap_or(rest);
+            mantissa.starts_with('0') && mantissa.bytes().all(|b| b == b'0' || b == b'.')
+        })
+        .map(|rest| format!("-{rest}"))
+        .collect()
+}
+
+#[test]
+fn a_symmetric_wing_prints_zero_roll_and_yaw_without_a_minus() {
+    // A mirrored wing with no deflected aileron rolls and yaws by symmetry not at all; the
+    // solver's roundoff must not show as `-0.00000`.
+    let o = gammaline(&["solve", "wings/survey-drone.toml", "--format", "line"]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let line = stdout(&o);
+    let field = |name: &str| {
+        let at = line.find(&format!(" {name} ")).expect(name) + name.len() + 2;
+        line[at..]
+            .split_whitespace()
+            .next()
+            .expect("a value")
+            .to_string()
+    };
+    assert_eq!(field("Cl_roll"), "0.00000", "{line}");
+    assert_eq!(field("Cn"), "0.00000", "{line}");
+}
+
+#[test]
+fn no_format_prints_a_negative_zero() {
+    for wing in example_wings() {
+        let file = wing.to_str().expect("utf-8 path");
+        for format in ["line", "table", "json", "csv"] {
+            let o = gammaline(&["solve", file, "--format", format]);
+            assert!(o.status.success(), "{file} {format}: {}", stderr(&o));
+            let found = negative_zeros(&stdout(&o));
+            assert!(found.is_empty(), "{file} {format}: {found:?}");
+        }
+        for format in ["table", "json", "csv"] {
+            let o = gammaline(&[
+                "sweep", file, "--from", "-2", "--to", "2", "--format", format,
+            ]);
+            assert!(o.status.success(), "{file} sweep {format}: {}", stderr(&o));
+            let found = negative_zeros(&stdout(&o));
+            assert!(found.is_empty(), "{file} sweep {format}: {found:?}");
+        }
+    }
+}
+
 #[test]
 fn help_is_there_for_every_command() {
     for command in ["solve", "check", "sweep", "open"] {

@@ -1,6 +1,7 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
+use crate::text::fixed;
 use crate::wing::{ControlKind, Wing};
 
 /// A pane of cells.
@@ -306,10 +307,10 @@ pub fn display(wing: &Wing, row: usize, field: Field) -> String {
         return "-".into();
     };
     match field {
-        Field::Cd0 | Field::Cd1 | Field::Cd2 => format!("{v:.4}"),
-        Field::Speed | Field::Altitude => format!("{v:.1}"),
-        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => format!("{v:.2}"),
-        _ => format!("{v:.3}"),
+        Field::Cd0 | Field::Cd1 | Field::Cd2 => fixed(v, 4),
+        Field::Speed | Field::Altitude => fixed(v, 1),
+        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => fixed(v, 2),
+        _ => fixed(v, 3),
     }
 }
 

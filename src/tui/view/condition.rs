@@ -6,6 +6,7 @@ use ratatui::layout::Rect;
 use ratatui::widgets::Widget;
 
 use super::put;
+use crate::text::fixed;
 use crate::tui::app::{App, Mode};
 use crate::tui::cells::{self, Field, Sheet};
 use crate::tui::editor::Purpose;
@@ -52,8 +53,11 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     }
     if let Ok(s) = &doc.solved {
         let extra = format!(
-            "   AR {:.2}  S {:.3} m2  M {:.3}  Re {:.2e}",
-            s.geometry.aspect_ratio, s.geometry.area, s.flight.mach, s.flight.reynolds_mac
+            "   AR {}  S {} m2  M {}  Re {:.2e}",
+            fixed(s.geometry.aspect_ratio, 2),
+            fixed(s.geometry.area, 3),
+            fixed(s.flight.mach, 3),
+            s.flight.reynolds_mac
         );
         put(
             buf,

@@ -12,6 +12,7 @@ use ratatui::widgets::Widget;
 use super::sparkline::{self, Limit};
 use super::{block, put};
 use crate::solver::Solution;
+use crate::text::fixed;
 use crate::tui::app::App;
 
 /// Width of the series label at the left of each row.
@@ -311,8 +312,8 @@ pub fn short(v: f64) -> String {
     if a != 0.0 && !(0.01..10_000.0).contains(&a) {
         format!("{v:.1e}")
     } else if a >= 100.0 {
-        format!("{v:.0}")
+        fixed(v, 0)
     } else {
-        format!("{v:.2}")
+        fixed(v, 2)
     }
 }
