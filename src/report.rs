@@ -9,10 +9,12 @@ use crate::solver::{Coefficients, Solution, SpanPoint, METHOD};
 use crate::text::{fixed, inert, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
-/// How the condition was set, for the notebook line.
-fn condition_text(s: &Solution) -> String {
+/// How the condition was set, for the notebook line: a wing solved for a target CL says so
+/// before the alpha that gives it.
+fn condition_text(s: &Solution, target_cl: Option<f64>) -> String {
+    let target = target_cl.map_or_else(String::new, |cl| format!("target CL {} -> ", fixed(cl, 4)));
     format!(
-        "alpha {} deg, V {} m/s, h {} m ISA",
+        "{target}alpha {} deg, V {} m/s, h {} m ISA",
         fixed(s.coefficients.alpha_deg, 2),
         fixed(s.flight.speed, 1),
         fixed(s.flight.altitude, 0)
@@ -48,9 +50,10 @@ fn lift_to_drag(s: &Solution) -> Option<f64> {
 }
 
 /// One line to paste into a lab notebook: the wing, the condition, the key coefficients with
-/// units, the method and term count, and the wing's fingerprint.
+/// units, the method and term count, and the wing's fingerprint. `target_cl` is the CL the
+/// solution was solved for, if it was (`None` when alpha was given).
 #[must_use]
-pub fn line(wing: &Wing, s: &Solution) -> String {
+pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     let c = &s.coefficients;
     let stall = s.first_stall.map_or_else(
         || "stall n/a".to_string(),
@@ -60,7 +63,7 @@ pub fn line(wing: &Wing, s: &Solution) -> String {
         "{name} | {cond} | CL {cl} CDi {cdi} CDp {cdp} CD {cd} L/D {ld} e {e} \
          CLa {cla}/rad Cl_roll {roll} Cn {cn} Mroot {m} N m {stall} | {METHOD} N={n} | wing {hash}",
         name = inert(&wing.name),
-        cond = condition_text(s),
+        cond = condition_text(s, target_cl),
         cl = fixed(c.cl, 4),
         cdi = fixed(c.cdi, 5),
         cdp = fixed(c.cdp, 5),
@@ -76,9 +79,10 @@ pub fn line(wing: &Wing, s: &Solution) -> String {
     )
 }
 
-/// A readable multi-line report with the spanwise table at the stations.
+/// A readable multi-line report with the spanwise table at the stations; `target_cl` as for
+/// [`line`].
 #[must_use]
-pub fn table(wing: &Wing, s: &Solution) -> String {
+pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     let c = &s.coefficients;
     let g = &s.geometry;
     let f = &s.flight;
@@ -103,7 +107,7 @@ pub fn table(wing: &Wing, s: &Solution) -> String {
     let _ = writeln!(
         out,
         "condition   {}  rho {} kg/m^3  q {} Pa  Mach {}  Re(MAC) {:.3e}",
-        condition_text(s),
+        condition_text(s, target_cl),
         fixed(f.air.density, 4),
         fixed(f.q, 1),
         fixed(f.mach, 3),
@@ -195,8 +199,9 @@ fn point_json(p: &SpanPoint, reynolds: f64) -> Value {
 
 /// The JSON object of `solve --format json`. The keys named in the core issue are a contract;
 /// more may be added, none renamed or dropped. SI units, angles in degrees unless the key says.
+/// `target_CL` is the CL solved for, null when alpha was given.
 #[must_use]
-pub fn json(wing: &Wing, s: &Solution) -> Value {
+pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
     let c = &s.coefficients;
     let g = &s.geometry;
     let f = &s.flight;
@@ -212,6 +217,7 @@ pub fn json(wing: &Wing, s: &Solution) -> Value {
         "method": METHOD,
         "terms": s.terms,
         "alpha_deg": c.alpha_deg,
+        "target_CL": target_cl,
         "CL": c.cl,
         "CDi": c.cdi,
         "CDp": c.cdp,

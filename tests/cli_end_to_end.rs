@@ -170,6 +170,39 @@ fn line_format_is_one_line_with_name_method_and_fingerprint() {
     assert!(text.contains("CL ") && text.contains("CDi ") && text.contains(" e "));
 }
 
+fn line_of(file: &str, extra: &[&str]) -> String {
+    let mut args = vec!["solve", file, "--format", "line"];
+    args.extend_from_slice(extra);
+    let o = gammaline(&args);
+    assert!(o.status.success(), "{file}: {}", stderr(&o));
+    stdout(&o)
+}
+
+#[test]
+fn a_target_cl_solve_says_so_in_the_line_and_the_json() {
+    // The sailplane's [condition] gives cl = 0.60 instead of alpha.
+    let file = "wings/sailplane.toml";
+    let v = json_of(file, &[]);
+    assert_eq!(v["target_CL"].as_f64(), Some(0.6));
+    let alpha = v["alpha_deg"].as_f64().expect("alpha");
+    let line = line_of(file, &[]);
+    let expected = format!("| target CL 0.6000 -> alpha {alpha:.2} deg, V ");
+    assert!(line.contains(&expected), "{expected} not in {line}");
+    // The same wing at a given alpha: no target, and JSON says null.
+    let line = line_of(file, &["--alpha", "3"]);
+    assert!(line.contains("| alpha 3.00 deg, V "), "{line}");
+    assert!(!line.contains("target"), "{line}");
+    assert!(json_of(file, &["--alpha", "3"])["target_CL"].is_null());
+    // A target from the command line on a wing whose file gives alpha.
+    let line = line_of("wings/survey-drone.toml", &["--cl", "0.5"]);
+    assert!(line.contains("| target CL 0.5000 -> alpha "), "{line}");
+    let table = stdout(&gammaline(&["solve", file]));
+    assert!(
+        table.contains("condition   target CL 0.6000 -> alpha "),
+        "{table}"
+    );
+}
+
 #[test]
 fn csv_has_a_header_and_one_row_per_output_point() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();

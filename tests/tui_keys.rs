@@ -5,8 +5,9 @@ mod tui_support;
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
 use gammaline::tui::app::Mode;
 use gammaline::tui::cells::Sheet;
+use gammaline::tui::theme::{Theme, UNICODE};
 use gammaline::wing::file;
-use tui_support::{app, draw, press, retype, shown_cl};
+use tui_support::{app, app_with, draw, press, retype, shown_cl, tapered};
 
 #[test]
 fn editing_a_chord_resolves_and_changes_cl() {
@@ -291,9 +292,33 @@ fn copy_appends_the_result_line_to_the_notebook() {
     assert_eq!(app.outbox.len(), 1);
     assert!(app.outbox[0].starts_with("\u{1b}]52;c;") && app.outbox[0].ends_with('\u{7}'));
     let notebook = std::fs::read_to_string(dir.path().join("notebook.txt")).expect("notebook");
-    let line = gammaline::report::line(&app.doc().wing, app.doc().solved.as_ref().expect("solved"));
+    let doc = app.doc();
+    let line = gammaline::report::line(
+        &doc.wing,
+        doc.solved.as_ref().expect("solved"),
+        doc.wing.condition.target_cl,
+    );
     assert!(notebook.trim_end().ends_with(&line), "{notebook}");
     assert!(notebook.starts_with("20"), "timestamped: {notebook}");
+}
+
+#[test]
+fn a_copied_line_says_when_the_wing_was_solved_for_a_target_cl() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut wing = tapered();
+    wing.condition.target_cl = Some(0.55);
+    let mut app = app_with(wing, Theme::colour(UNICODE), dir.path());
+    press(&mut app, "y");
+    let notebook = std::fs::read_to_string(dir.path().join("notebook.txt")).expect("notebook");
+    let alpha = app
+        .doc()
+        .solved
+        .as_ref()
+        .expect("solved")
+        .coefficients
+        .alpha_deg;
+    let expected = format!("target CL 0.5500 -> alpha {alpha:.2} deg");
+    assert!(notebook.contains(&expected), "{expected} not in {notebook}");
 }
 
 #[test]

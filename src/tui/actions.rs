@@ -146,7 +146,7 @@ pub fn revert(app: &mut App) {
 /// appends it to the notebook file.
 pub fn copy(app: &mut App) {
     let line = match &app.doc().solved {
-        Ok(s) => report::line(&app.doc().wing, s),
+        Ok(s) => report::line(&app.doc().wing, s, app.doc().wing.condition.target_cl),
         Err(reason) => {
             let msg = format!("nothing to copy: {reason}");
             app.say(&msg, true);
