@@ -404,3 +404,35 @@ fn deleting_refuses_clearly_at_two_stations_and_for_used_airfoils() {
     press(&mut app, "u");
     assert_eq!(app.doc().wing.stations.len(), 3);
 }
+
+#[test]
+fn a_key_that_is_not_bound_says_so_and_names_the_other_case() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // `n` is the quit question's "stay"; in normal mode the notebook is `N`.
+    press(&mut app, "n");
+    assert!(matches!(app.mode, Mode::Normal));
+    assert_eq!(
+        app.status.text,
+        "n is not a key here; N does: choose the notebook file (? lists the keys)"
+    );
+    press(&mut app, "N");
+    assert!(
+        matches!(app.mode, Mode::Edit(_)),
+        "N opens the notebook prompt"
+    );
+    press(&mut app, "\x1b");
+    press(&mut app, "Z");
+    assert_eq!(app.status.text, "Z is not a key here (? lists the keys)");
+}
+
+#[test]
+fn n_in_the_quit_question_stays() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    press(&mut app, "l+q");
+    assert!(matches!(app.mode, Mode::Confirm), "unsaved work asks first");
+    press(&mut app, "n");
+    assert!(matches!(app.mode, Mode::Normal));
+    assert!(!app.quit);
+}
