@@ -3,8 +3,10 @@
 mod tui_support;
 
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use gammaline::tui::app::Mode;
+use gammaline::solver::Options;
+use gammaline::tui::app::{App, Mode};
 use gammaline::tui::cells::Sheet;
+use gammaline::tui::doc::Doc;
 use gammaline::tui::theme::{Theme, UNICODE};
 use gammaline::wing::file;
 use tui_support::{app, app_with, draw, press, retype, shown_cl, tapered};
@@ -427,12 +429,36 @@ fn a_key_that_is_not_bound_says_so_and_names_the_other_case() {
 }
 
 #[test]
-fn n_in_the_quit_question_stays() {
+fn saving_keeps_the_files_comments_and_layout() {
     let dir = tempfile::tempdir().expect("temp dir");
-    let mut app = app(dir.path());
-    press(&mut app, "l+q");
-    assert!(matches!(app.mode, Mode::Confirm), "unsaved work asks first");
-    press(&mut app, "n");
-    assert!(matches!(app.mode, Mode::Normal));
-    assert!(!app.quit);
+    let original = std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/wings/survey-drone.toml"
+    ))
+    .expect("example reads");
+    let path = dir.path().join("drone.toml");
+    std::fs::write(&path, &original).expect("write");
+    let wing = file::read(&path).expect("reads");
+    let doc = Doc::new(wing, Some(path.clone()), Options::default());
+    let mut app = App::new(
+        vec![doc],
+        Theme::monochrome(UNICODE),
+        tui_support::settings(dir.path()),
+    );
+    // Root chord 0.30 -> 0.32, then a station halfway to the tip, then save.
+    press(&mut app, "l\n");
+    retype(&mut app, "0.32\n");
+    press(&mut app, "is");
+    assert!(!app.doc().unsaved(), "{:?}", app.status);
+    assert_eq!(app.doc().wing.stations.len(), 3);
+    let saved = std::fs::read_to_string(&path).expect("saved");
+    let comments = |t: &str| -> Vec<String> {
+        t.lines()
+            .filter_map(|l| l.find('#').map(|at| l[at..].to_string()))
+            .collect()
+    };
+    assert_eq!(comments(&saved), comments(&original), "{saved}");
+    assert!(saved.contains("chord = 0.32              # m\n"), "{saved}");
+    assert_eq!(saved.matches("[[station]]").count(), 3, "{saved}");
+    assert_eq!(file::read(&path).expect("reads back"), app.doc().wing);
 }

@@ -12,8 +12,10 @@ use toml::Spanned;
 use super::validate::{self, Place};
 use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
 
+mod edit;
 mod locate;
 
+pub use edit::edit_toml;
 use locate::Locator;
 
 /// A wing file that cannot be used, located to the character.
