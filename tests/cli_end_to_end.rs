@@ -276,6 +276,25 @@ fn a_broken_file_gives_one_line_and_exit_code_2() {
 }
 
 #[test]
+fn a_missing_file_gives_one_plain_line_and_exit_code_2() {
+    for command in ["solve", "check", "sweep"] {
+        let o = gammaline(&[command, "nothere.toml"]);
+        assert_eq!(o.status.code(), Some(2), "{command}");
+        assert!(stdout(&o).is_empty(), "{command}: no partial result");
+        let err = stderr(&o);
+        assert_eq!(err.lines().count(), 1, "{command}: {err}");
+        assert!(
+            err.starts_with("error: nothere.toml: cannot read: "),
+            "{command}: {err}"
+        );
+        assert!(
+            !err.contains(":1:1:") && !err.contains(": -:"),
+            "{command}: {err}"
+        );
+    }
+}
+
+#[test]
 fn bad_flags_exit_2_without_output() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();
     for args in [
