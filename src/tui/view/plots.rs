@@ -37,27 +37,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     if inner.width <= LABEL + 2 || inner.height < 6 {
         return;
     }
-    let s = match &app.doc().solved {
-        Ok(s) => s,
-        Err(reason) => {
-            put(
-                buf,
-                inner.x,
-                inner.y,
-                inner.width,
-                "no solution:",
-                app.theme.invalid,
-            );
-            put(
-                buf,
-                inner.x,
-                inner.y + 1,
-                inner.width,
-                reason,
-                app.theme.invalid,
-            );
-            return;
-        }
+    let Some(s) = super::solution_or_reason(app, inner, buf, "no solution:", true) else {
+        return;
     };
     let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
     let (y0, y1) = y_range(s, reference);

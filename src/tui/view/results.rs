@@ -84,19 +84,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     if area.height == 0 {
         return;
     }
-    let s = match &app.doc().solved {
-        Ok(s) => s,
-        Err(reason) => {
-            put(
-                buf,
-                area.x,
-                area.y,
-                area.width,
-                &format!("not solved: {reason}"),
-                t.invalid,
-            );
-            return;
-        }
+    let Some(s) = super::solution_or_reason(app, area, buf, "not solved:", false) else {
+        return;
     };
     let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
     let delta_mark = t.glyphs.delta;
