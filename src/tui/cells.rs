@@ -476,12 +476,22 @@ pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
                         .then(|| crate::solver::controls::effectiveness(c))
                 })
                 .unwrap_or(0.0);
-            let step = field.step();
-            // Round to the step grid so repeated nudges give tidy values.
-            let v = ((base + f64::from(steps) * step) / step).round() * step;
+            let v = on_grid(base + f64::from(steps) * field.step(), field.step());
             set_number(wing, row, field, v);
             true
         }
+    }
+}
+
+/// `v` rounded to a multiple of `step`, as the nearest double to that decimal (so a nudged
+/// 6.0 + 0.1 is 6.1, not 6.1000000000000005, on screen, in the editor and in a saved file).
+/// Steps below 1 are fractions 1/k with k whole, so dividing by k rounds only once.
+fn on_grid(v: f64, step: f64) -> f64 {
+    if step >= 1.0 {
+        (v / step).round() * step
+    } else {
+        let per = (1.0 / step).round();
+        (v * per).round() / per
     }
 }
 
