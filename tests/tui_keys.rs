@@ -462,3 +462,26 @@ fn saving_keeps_the_files_comments_and_layout() {
     assert_eq!(saved.matches("[[station]]").count(), 3, "{saved}");
     assert_eq!(file::read(&path).expect("reads back"), app.doc().wing);
 }
+
+#[test]
+fn a_condition_change_re_solves_like_a_fresh_solve() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // Solution has no PartialEq: its Debug text holds every number at full precision.
+    let fresh = |app: &App| {
+        let s = gammaline::tui::doc::solve(&app.doc().wing, Options::default());
+        format!("{s:?}")
+    };
+    let shown = |app: &App| format!("{:?}", app.doc().solved);
+    // To the condition bar (stations, airfoils, controls, condition), alpha up a step.
+    press(&mut app, "\t\t\t+");
+    assert_eq!(app.doc().cursor.sheet, Sheet::Condition);
+    assert_eq!(app.doc().wing.condition.alpha_deg, 6.1, "{:?}", app.status);
+    assert_eq!(shown(&app), fresh(&app));
+    // Then a planform change: the kept system must not be reused.
+    press(&mut app, "\tl+");
+    assert_eq!(app.doc().wing.stations[0].chord, 1.61, "{:?}", app.status);
+    assert_eq!(shown(&app), fresh(&app));
+    press(&mut app, "\t\t\t-");
+    assert_eq!(shown(&app), fresh(&app));
+}
