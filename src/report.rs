@@ -6,19 +6,42 @@ use std::fmt::Write as _;
 use serde_json::{json, Value};
 
 use crate::solver::{Coefficients, Solution, SpanPoint, METHOD};
-use crate::text::inert;
+use crate::text::{fixed, inert, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
-/// How the condition was set, for the notebook line.
-fn condition_text(s: &Solution) -> String {
+/// How the condition was set, for the notebook line: a wing solved for a target CL says so
+/// before the alpha that gives it.
+fn condition_text(s: &Solution, target_cl: Option<f64>) -> String {
+    let target = target_cl.map_or_else(String::new, |cl| format!("target CL {} -> ", fixed(cl, 4)));
     format!(
-        "alpha {:.2} deg, V {:.1} m/s, h {:.0} m ISA",
-        s.coefficients.alpha_deg, s.flight.speed, s.flight.altitude
+        "{target}alpha {} deg, V {} m/s, h {} m ISA",
+        fixed(s.coefficients.alpha_deg, 2),
+        fixed(s.flight.speed, 1),
+        fixed(s.flight.altitude, 0)
     )
 }
 
 fn opt(value: Option<f64>, decimals: usize) -> String {
-    value.map_or_else(|| "n/a".to_string(), |v| format!("{v:.decimals$}"))
+    value.map_or_else(|| "n/a".to_string(), |v| fixed(v, decimals))
+}
+
+/// Full-precision numbers for CSV: `-0` written as `0`, a missing value as an empty field.
+fn csv_row(values: &[Option<f64>]) -> String {
+    let fields: Vec<String> = values
+        .iter()
+        .map(|v| v.map_or_else(String::new, |v| unsigned_zero(v).to_string()))
+        .collect();
+    fields.join(",")
+}
+
+/// Every `-0.0` in a JSON document written as `0.0`.
+fn unsigned_zeros(value: &mut Value) {
+    match value {
+        Value::Number(n) if n.as_f64() == Some(0.0) && n.is_f64() => *value = json!(0.0),
+        Value::Array(items) => items.iter_mut().for_each(unsigned_zeros),
+        Value::Object(map) => map.values_mut().for_each(unsigned_zeros),
+        _ => {}
+    }
 }
 
 fn lift_to_drag(s: &Solution) -> Option<f64> {
@@ -27,37 +50,39 @@ fn lift_to_drag(s: &Solution) -> Option<f64> {
 }
 
 /// One line to paste into a lab notebook: the wing, the condition, the key coefficients with
-/// units, the method and term count, and the wing's fingerprint.
+/// units, the method and term count, and the wing's fingerprint. `target_cl` is the CL the
+/// solution was solved for, if it was (`None` when alpha was given).
 #[must_use]
-pub fn line(wing: &Wing, s: &Solution) -> String {
+pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     let c = &s.coefficients;
     let stall = s.first_stall.map_or_else(
         || "stall n/a".to_string(),
-        |f| format!("stall y {:.3} m at CL {:.3}", f.y, f.cl_wing),
+        |f| format!("stall y {} m at CL {}", fixed(f.y, 3), fixed(f.cl_wing, 3)),
     );
     format!(
-        "{name} | {cond} | CL {cl:.4} CDi {cdi:.5} CDp {cdp:.5} CD {cd:.5} L/D {ld} e {e} \
-         CLa {cla:.3}/rad Cl_roll {roll:.5} Cn {cn:.5} Mroot {m:.1} N m {stall} | {METHOD} N={n} | wing {hash}",
+        "{name} | {cond} | CL {cl} CDi {cdi} CDp {cdp} CD {cd} L/D {ld} e {e} \
+         CLa {cla}/rad Cl_roll {roll} Cn {cn} Mroot {m} N m {stall} | {METHOD} N={n} | wing {hash}",
         name = inert(&wing.name),
-        cond = condition_text(s),
-        cl = c.cl,
-        cdi = c.cdi,
-        cdp = c.cdp,
-        cd = c.cd,
+        cond = condition_text(s, target_cl),
+        cl = fixed(c.cl, 4),
+        cdi = fixed(c.cdi, 5),
+        cdp = fixed(c.cdp, 5),
+        cd = fixed(c.cd, 5),
         ld = opt(lift_to_drag(s), 1),
         e = opt(c.e, 4),
-        cla = s.cl_alpha,
-        roll = c.cl_roll,
-        cn = c.cn,
-        m = s.flight.root_bending_moment,
+        cla = fixed(s.cl_alpha, 3),
+        roll = fixed(c.cl_roll, 5),
+        cn = fixed(c.cn, 5),
+        m = fixed(s.flight.root_bending_moment, 1),
         n = s.terms,
         hash = fingerprint(wing),
     )
 }
 
-/// A readable multi-line report with the spanwise table at the stations.
+/// A readable multi-line report with the spanwise table at the stations; `target_cl` as for
+/// [`line`].
 #[must_use]
-pub fn table(wing: &Wing, s: &Solution) -> String {
+pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     let c = &s.coefficients;
     let g = &s.geometry;
     let f = &s.flight;
@@ -71,52 +96,65 @@ pub fn table(wing: &Wing, s: &Solution) -> String {
     let _ = writeln!(out, "method      {METHOD}, N = {}", s.terms);
     let _ = writeln!(
         out,
-        "geometry    b {:.3} m  S {:.4} m^2  AR {:.3}  taper {:.3}  MAC {:.4} m at y {:.3} m",
-        g.span, g.area, g.aspect_ratio, g.taper_ratio, g.mac, g.y_mac
+        "geometry    b {} m  S {} m^2  AR {}  taper {}  MAC {} m at y {} m",
+        fixed(g.span, 3),
+        fixed(g.area, 4),
+        fixed(g.aspect_ratio, 3),
+        fixed(g.taper_ratio, 3),
+        fixed(g.mac, 4),
+        fixed(g.y_mac, 3)
     );
     let _ = writeln!(
         out,
-        "condition   {}  rho {:.4} kg/m^3  q {:.1} Pa  Mach {:.3}  Re(MAC) {:.3e}",
-        condition_text(s),
-        f.air.density,
-        f.q,
-        f.mach,
+        "condition   {}  rho {} kg/m^3  q {} Pa  Mach {}  Re(MAC) {:.3e}",
+        condition_text(s, target_cl),
+        fixed(f.air.density, 4),
+        fixed(f.q, 1),
+        fixed(f.mach, 3),
         f.reynolds_mac
     );
     let _ = writeln!(
         out,
-        "lift        CL {:.4}  CL_alpha {:.4}/rad ({:.5}/deg)  tau {:.4}",
-        c.cl,
-        s.cl_alpha,
-        s.cl_alpha.to_radians(),
-        s.tau
+        "lift        CL {}  CL_alpha {}/rad ({}/deg)  tau {}",
+        fixed(c.cl, 4),
+        fixed(s.cl_alpha, 4),
+        fixed(s.cl_alpha.to_radians(), 5),
+        fixed(s.tau, 4)
     );
     let _ = writeln!(
         out,
-        "drag        CDi {:.5}  CDp {:.5}  CD {:.5}  L/D {}  e {}  delta {}",
-        c.cdi,
-        c.cdp,
-        c.cd,
+        "drag        CDi {}  CDp {}  CD {}  L/D {}  e {}  delta {}",
+        fixed(c.cdi, 5),
+        fixed(c.cdp, 5),
+        fixed(c.cd, 5),
         opt(lift_to_drag(s), 2),
         opt(c.e, 4),
         opt(c.delta, 4)
     );
     let _ = writeln!(
         out,
-        "moments     Cl_roll {:.5}  Cn {:.6} (induced {:.6}, profile {:.6})",
-        c.cl_roll, c.cn, c.cn_induced, c.cn_profile
+        "moments     Cl_roll {}  Cn {} (induced {}, profile {})",
+        fixed(c.cl_roll, 5),
+        fixed(c.cn, 6),
+        fixed(c.cn_induced, 6),
+        fixed(c.cn_profile, 6)
     );
     let _ = writeln!(
         out,
-        "loads       lift {:.1} N  drag {:.2} N  root bending {:.2} N m  centre of lift y {:.3} m",
-        f.lift, f.drag, f.root_bending_moment, s.center_of_lift_y
+        "loads       lift {} N  drag {} N  root bending {} N m  centre of lift y {} m",
+        fixed(f.lift, 1),
+        fixed(f.drag, 2),
+        fixed(f.root_bending_moment, 2),
+        fixed(s.center_of_lift_y, 3)
     );
     let stall = s.first_stall.map_or_else(
         || "none (no section's cl rises with alpha)".to_string(),
         |st| {
             format!(
-                "y {:.3} m at CL {:.4} (alpha {:.2} deg)",
-                st.y, st.cl_wing, st.alpha_deg
+                "y {} m at CL {} (alpha {} deg)",
+                fixed(st.y, 3),
+                fixed(st.cl_wing, 4),
+                fixed(st.alpha_deg, 2)
             )
         },
     );
@@ -132,8 +170,14 @@ pub fn table(wing: &Wing, s: &Solution) -> String {
     for p in &s.stations {
         let _ = writeln!(
             out,
-            "{:>9.4} {:>8.4} {:>8.4} {:>8.4} {:>9.4} {:>9.4} {:>8.3}",
-            p.y, p.chord, p.cl, p.span_load, p.alpha_i_deg, p.gamma, p.cl_ratio
+            "{:>9} {:>8} {:>8} {:>8} {:>9} {:>9} {:>8}",
+            fixed(p.y, 4),
+            fixed(p.chord, 4),
+            fixed(p.cl, 4),
+            fixed(p.span_load, 4),
+            fixed(p.alpha_i_deg, 4),
+            fixed(p.gamma, 4),
+            fixed(p.cl_ratio, 3)
         );
     }
     out
@@ -155,8 +199,9 @@ fn point_json(p: &SpanPoint, reynolds: f64) -> Value {
 
 /// The JSON object of `solve --format json`. The keys named in the core issue are a contract;
 /// more may be added, none renamed or dropped. SI units, angles in degrees unless the key says.
+/// `target_CL` is the CL solved for, null when alpha was given.
 #[must_use]
-pub fn json(wing: &Wing, s: &Solution) -> Value {
+pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
     let c = &s.coefficients;
     let g = &s.geometry;
     let f = &s.flight;
@@ -172,6 +217,7 @@ pub fn json(wing: &Wing, s: &Solution) -> Value {
         "method": METHOD,
         "terms": s.terms,
         "alpha_deg": c.alpha_deg,
+        "target_CL": target_cl,
         "CL": c.cl,
         "CDi": c.cdi,
         "CDp": c.cdp,
@@ -222,6 +268,7 @@ pub fn json(wing: &Wing, s: &Solution) -> Value {
             target.extend(source);
         }
     }
+    unsigned_zeros(&mut out);
     out
 }
 
@@ -231,11 +278,18 @@ pub fn csv(s: &Solution) -> String {
     let mut out =
         String::from("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max\n");
     for p in &s.spanwise {
-        let _ = writeln!(
-            out,
-            "{},{},{},{},{},{},{},{}",
-            p.y, p.chord, p.cl, p.span_load, p.alpha_i_deg, p.gamma, p.cl_max, p.cl_ratio
-        );
+        let row = [
+            p.y,
+            p.chord,
+            p.cl,
+            p.span_load,
+            p.alpha_i_deg,
+            p.gamma,
+            p.cl_max,
+            p.cl_ratio,
+        ]
+        .map(Some);
+        let _ = writeln!(out, "{}", csv_row(&row));
     }
     out
 }
@@ -244,8 +298,8 @@ pub fn csv(s: &Solution) -> String {
 #[must_use]
 pub fn geometry_line(path: &std::path::Path, wing: &Wing, g: &Geometry) -> String {
     format!(
-        "ok {}: {} [{}] | {} stations, {} | b {:.3} m S {:.4} m^2 AR {:.2} taper {:.3} \
-         MAC {:.4} m at y {:.3} m | {} airfoils, {} controls",
+        "ok {}: {} [{}] | {} stations, {} | b {} m S {} m^2 AR {} taper {} \
+         MAC {} m at y {} m | {} airfoils, {} controls",
         inert(&path.display().to_string()),
         inert(&wing.name),
         fingerprint(wing),
@@ -255,12 +309,12 @@ pub fn geometry_line(path: &std::path::Path, wing: &Wing, g: &Geometry) -> Strin
         } else {
             "full span"
         },
-        g.span,
-        g.area,
-        g.aspect_ratio,
-        g.taper_ratio,
-        g.mac,
-        g.y_mac,
+        fixed(g.span, 3),
+        fixed(g.area, 4),
+        fixed(g.aspect_ratio, 2),
+        fixed(g.taper_ratio, 3),
+        fixed(g.mac, 4),
+        fixed(g.y_mac, 3),
         wing.airfoils.len(),
         wing.controls.len(),
     )
@@ -299,28 +353,28 @@ pub fn sweep(
                     })
                 })
                 .collect();
-            let obj = json!({
+            let mut obj = json!({
                 "wing": wing.name, "fingerprint": fingerprint(wing), "method": METHOD,
                 "q_Pa": q, "area_m2": g.area, "points": rows,
             });
+            unsigned_zeros(&mut obj);
             format!("{obj}\n")
         }
         SweepStyle::Csv => {
             let mut out = String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn\n");
             for c in points {
-                let _ = writeln!(
-                    out,
-                    "{},{},{},{},{},{},{},{},{}",
-                    c.alpha_deg,
-                    c.cl,
-                    c.cdi,
-                    c.cdp,
-                    c.cd,
-                    c.e.map_or(String::new(), |v| v.to_string()),
-                    ld(c).map_or(String::new(), |v| v.to_string()),
-                    c.cl_roll,
-                    c.cn
-                );
+                let row = [
+                    Some(c.alpha_deg),
+                    Some(c.cl),
+                    Some(c.cdi),
+                    Some(c.cdp),
+                    Some(c.cd),
+                    c.e,
+                    ld(c),
+                    Some(c.cl_roll),
+                    Some(c.cn),
+                ];
+                let _ = writeln!(out, "{}", csv_row(&row));
             }
             out
         }
@@ -334,15 +388,15 @@ pub fn sweep(
             for c in points {
                 let _ = writeln!(
                     out,
-                    "{:>8.2} {:>8.4} {:>9.5} {:>9.5} {:>9.5} {:>7} {:>7} {:>9.1}",
-                    c.alpha_deg,
-                    c.cl,
-                    c.cdi,
-                    c.cdp,
-                    c.cd,
+                    "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
+                    fixed(c.alpha_deg, 2),
+                    fixed(c.cl, 4),
+                    fixed(c.cdi, 5),
+                    fixed(c.cdp, 5),
+                    fixed(c.cd, 5),
                     opt(c.e, 4),
                     opt(ld(c), 1),
-                    q * g.area * c.cl
+                    fixed(q * g.area * c.cl, 1)
                 );
             }
             out

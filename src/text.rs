@@ -3,6 +3,10 @@
 //! ratatui writes cell contents verbatim, so an escape sequence hidden in a wing name could
 //! move the cursor, retitle the window or rewrite the clipboard. Everything that comes from a
 //! file (names, airfoil keys, paths, error messages quoting them) goes through [`inert`].
+//!
+//! Numbers shown to people go through [`fixed`] (or [`signed`]), so a value that rounds to
+//! zero never prints as `-0.000`; full-precision output (CSV, JSON) goes through
+//! [`unsigned_zero`].
 
 /// Replaces control characters (C0, DEL, C1) and bidirectional overrides with `?`, and tabs
 /// and newlines with a space, so the result is inert on any terminal.
@@ -27,6 +31,49 @@ pub fn inert_ascii(text: &str) -> String {
         .collect()
 }
 
+/// `v` with `decimals` places; a value that rounds to zero prints without a minus sign.
+/// Pad it with `{:>9}` where a column needs it.
+#[must_use]
+pub fn fixed(v: f64, decimals: usize) -> String {
+    drop_minus_of_zero(format!("{v:.decimals$}"))
+}
+
+/// Like [`fixed`] with the sign always shown (`+0.00` for a value that rounds to zero), for
+/// differences.
+#[must_use]
+pub fn signed(v: f64, decimals: usize) -> String {
+    let text = fixed(v, decimals);
+    if text.starts_with('-') {
+        text
+    } else {
+        format!("+{text}")
+    }
+}
+
+/// `-0.0` made `0.0`, for output at full precision; every other value unchanged.
+#[must_use]
+pub fn unsigned_zero(v: f64) -> f64 {
+    if v == 0.0 {
+        0.0
+    } else {
+        v
+    }
+}
+
+/// `-0.000` (or `-0.0e0`) becomes `0.000`: the minus of a number whose digits are all zero.
+fn drop_minus_of_zero(text: String) -> String {
+    match text.strip_prefix('-') {
+        Some(rest) if is_zero_digits(rest) => rest.to_string(),
+        _ => text,
+    }
+}
+
+/// True when the mantissa of `text` has no digit but 0 (`0`, `0.000`, `0.0e0`, `0.0e-3`).
+fn is_zero_digits(text: &str) -> bool {
+    let mantissa = text.split(['e', 'E']).next().unwrap_or(text);
+    mantissa.bytes().any(|b| b == b'0') && mantissa.bytes().all(|b| b == b'0' || b == b'.')
+}
+
 /// Characters that reorder the text around them and can disguise what is on screen.
 const fn is_bidi_control(c: char) -> bool {
     matches!(c, '\u{202A}'..='\u{202E}' | '\u{2066}'..='\u{2069}' | '\u{200E}' | '\u{200F}')
@@ -42,6 +89,23 @@ mod tests {
         let out = inert(hostile);
         assert!(!out.chars().any(char::is_control), "{out:?}");
         assert!(out.starts_with("wing?]52;c;aGk=??[2J?31m"));
+    }
+
+    #[test]
+    fn numbers_that_round_to_zero_have_no_minus() {
+        assert_eq!(fixed(-5.8e-18, 5), "0.00000");
+        assert_eq!(fixed(-0.0, 2), "0.00");
+        assert_eq!(fixed(-0.004, 2), "0.00");
+        assert_eq!(fixed(-0.005_001, 2), "-0.01");
+        assert_eq!(fixed(-3.25, 1), "-3.2");
+        assert_eq!(signed(-1e-9, 3), "+0.000");
+        assert_eq!(signed(0.5, 1), "+0.5");
+        assert_eq!(signed(-0.5, 1), "-0.5");
+        assert_eq!(drop_minus_of_zero(format!("{:.1e}", -0.0)), "0.0e0");
+        assert_eq!(fixed(f64::NAN, 2), "NaN");
+        assert_eq!(fixed(f64::NEG_INFINITY, 2), "-inf");
+        assert!(unsigned_zero(-0.0).is_sign_positive());
+        assert_eq!(unsigned_zero(-2.5e-18), -2.5e-18);
     }
 
     #[test]

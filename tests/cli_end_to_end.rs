@@ -170,6 +170,39 @@ fn line_format_is_one_line_with_name_method_and_fingerprint() {
     assert!(text.contains("CL ") && text.contains("CDi ") && text.contains(" e "));
 }
 
+fn line_of(file: &str, extra: &[&str]) -> String {
+    let mut args = vec!["solve", file, "--format", "line"];
+    args.extend_from_slice(extra);
+    let o = gammaline(&args);
+    assert!(o.status.success(), "{file}: {}", stderr(&o));
+    stdout(&o)
+}
+
+#[test]
+fn a_target_cl_solve_says_so_in_the_line_and_the_json() {
+    // The sailplane's [condition] gives cl = 0.60 instead of alpha.
+    let file = "wings/sailplane.toml";
+    let v = json_of(file, &[]);
+    assert_eq!(v["target_CL"].as_f64(), Some(0.6));
+    let alpha = v["alpha_deg"].as_f64().expect("alpha");
+    let line = line_of(file, &[]);
+    let expected = format!("| target CL 0.6000 -> alpha {alpha:.2} deg, V ");
+    assert!(line.contains(&expected), "{expected} not in {line}");
+    // The same wing at a given alpha: no target, and JSON says null.
+    let line = line_of(file, &["--alpha", "3"]);
+    assert!(line.contains("| alpha 3.00 deg, V "), "{line}");
+    assert!(!line.contains("target"), "{line}");
+    assert!(json_of(file, &["--alpha", "3"])["target_CL"].is_null());
+    // A target from the command line on a wing whose file gives alpha.
+    let line = line_of("wings/survey-drone.toml", &["--cl", "0.5"]);
+    assert!(line.contains("| target CL 0.5000 -> alpha "), "{line}");
+    let table = stdout(&gammaline(&["solve", file]));
+    assert!(
+        table.contains("condition   target CL 0.6000 -> alpha "),
+        "{table}"
+    );
+}
+
 #[test]
 fn csv_has_a_header_and_one_row_per_output_point() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();
@@ -243,6 +276,25 @@ fn a_broken_file_gives_one_line_and_exit_code_2() {
 }
 
 #[test]
+fn a_missing_file_gives_one_plain_line_and_exit_code_2() {
+    for command in ["solve", "check", "sweep"] {
+        let o = gammaline(&[command, "nothere.toml"]);
+        assert_eq!(o.status.code(), Some(2), "{command}");
+        assert!(stdout(&o).is_empty(), "{command}: no partial result");
+        let err = stderr(&o);
+        assert_eq!(err.lines().count(), 1, "{command}: {err}");
+        assert!(
+            err.starts_with("error: nothere.toml: cannot read: "),
+            "{command}: {err}"
+        );
+        assert!(
+            !err.contains(":1:1:") && !err.contains(": -:"),
+            "{command}: {err}"
+        );
+    }
+}
+
+#[test]
 fn bad_flags_exit_2_without_output() {
     let wing = example_wings()[0].to_str().expect("utf-8").to_string();
     for args in [
@@ -257,6 +309,58 @@ fn bad_flags_exit_2_without_output() {
         assert_eq!(o.status.code(), Some(2), "{args:?}");
         assert!(stdout(&o).is_empty(), "{args:?}");
         assert!(stderr(&o).contains("error"), "{args:?}: {}", stderr(&o));
+    }
+}
+
+/// Numbers printed as a minus sign before nothing but zeros (`-0.00000`, `-0`, `-0.0e0`).
+fn negative_zeros(text: &str) -> Vec<String> {
+    text.split(|c: char| c.is_whitespace() || matches!(c, ',' | ':' | '[' | ']' | '(' | ')'))
+        .filter_map(|token| token.strip_prefix('-'))
+        .filter(|rest| {
+            let mantissa = rest.split(['e', 'E']).next().unwrap_or(rest);
+            mantissa.starts_with('0') && mantissa.bytes().all(|b| b == b'0' || b == b'.')
+        })
+        .map(|rest| format!("-{rest}"))
+        .collect()
+}
+
+#[test]
+fn a_symmetric_wing_prints_zero_roll_and_yaw_without_a_minus() {
+    // A mirrored wing with no deflected aileron rolls and yaws by symmetry not at all; the
+    // solver's roundoff must not show as `-0.00000`.
+    let o = gammaline(&["solve", "wings/survey-drone.toml", "--format", "line"]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let line = stdout(&o);
+    let field = |name: &str| {
+        let at = line.find(&format!(" {name} ")).expect(name) + name.len() + 2;
+        line[at..]
+            .split_whitespace()
+            .next()
+            .expect("a value")
+            .to_string()
+    };
+    assert_eq!(field("Cl_roll"), "0.00000", "{line}");
+    assert_eq!(field("Cn"), "0.00000", "{line}");
+}
+
+#[test]
+fn no_format_prints_a_negative_zero() {
+    for wing in example_wings() {
+        let file = wing.to_str().expect("utf-8 path");
+        for format in ["line", "table", "json", "csv"] {
+            let o = gammaline(&["solve", file, "--format", format]);
+            assert!(o.status.success(), "{file} {format}: {}", stderr(&o));
+            let found = negative_zeros(&stdout(&o));
+            assert!(found.is_empty(), "{file} {format}: {found:?}");
+        }
+        for format in ["table", "json", "csv"] {
+            let o = gammaline(&[
+                "sweep", file, "--from", "-2", "--to", "2", "--format", format,
+            ]);
+            assert!(o.status.success(), "{file} sweep {format}: {}", stderr(&o));
+            let found = negative_zeros(&stdout(&o));
+            assert!(found.is_empty(), "{file} sweep {format}: {found:?}");
+        }
     }
 }
 

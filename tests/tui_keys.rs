@@ -3,10 +3,13 @@
 mod tui_support;
 
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use gammaline::tui::app::Mode;
+use gammaline::solver::Options;
+use gammaline::tui::app::{App, Mode};
 use gammaline::tui::cells::Sheet;
+use gammaline::tui::doc::Doc;
+use gammaline::tui::theme::{Theme, UNICODE};
 use gammaline::wing::file;
-use tui_support::{app, draw, press, retype, shown_cl};
+use tui_support::{app, app_with, draw, press, retype, shown_cl, tapered};
 
 #[test]
 fn editing_a_chord_resolves_and_changes_cl() {
@@ -291,9 +294,33 @@ fn copy_appends_the_result_line_to_the_notebook() {
     assert_eq!(app.outbox.len(), 1);
     assert!(app.outbox[0].starts_with("\u{1b}]52;c;") && app.outbox[0].ends_with('\u{7}'));
     let notebook = std::fs::read_to_string(dir.path().join("notebook.txt")).expect("notebook");
-    let line = gammaline::report::line(&app.doc().wing, app.doc().solved.as_ref().expect("solved"));
+    let doc = app.doc();
+    let line = gammaline::report::line(
+        &doc.wing,
+        doc.solved.as_ref().expect("solved"),
+        doc.wing.condition.target_cl,
+    );
     assert!(notebook.trim_end().ends_with(&line), "{notebook}");
     assert!(notebook.starts_with("20"), "timestamped: {notebook}");
+}
+
+#[test]
+fn a_copied_line_says_when_the_wing_was_solved_for_a_target_cl() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut wing = tapered();
+    wing.condition.target_cl = Some(0.55);
+    let mut app = app_with(wing, Theme::colour(UNICODE), dir.path());
+    press(&mut app, "y");
+    let notebook = std::fs::read_to_string(dir.path().join("notebook.txt")).expect("notebook");
+    let alpha = app
+        .doc()
+        .solved
+        .as_ref()
+        .expect("solved")
+        .coefficients
+        .alpha_deg;
+    let expected = format!("target CL 0.5500 -> alpha {alpha:.2} deg");
+    assert!(notebook.contains(&expected), "{expected} not in {notebook}");
 }
 
 #[test]
@@ -378,4 +405,83 @@ fn deleting_refuses_clearly_at_two_stations_and_for_used_airfoils() {
     // Undo brings the deleted station back.
     press(&mut app, "u");
     assert_eq!(app.doc().wing.stations.len(), 3);
+}
+
+#[test]
+fn a_key_that_is_not_bound_says_so_and_names_the_other_case() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // `n` is the quit question's "stay"; in normal mode the notebook is `N`.
+    press(&mut app, "n");
+    assert!(matches!(app.mode, Mode::Normal));
+    assert_eq!(
+        app.status.text,
+        "n is not a key here; N does: choose the notebook file (? lists the keys)"
+    );
+    press(&mut app, "N");
+    assert!(
+        matches!(app.mode, Mode::Edit(_)),
+        "N opens the notebook prompt"
+    );
+    press(&mut app, "\x1b");
+    press(&mut app, "Z");
+    assert_eq!(app.status.text, "Z is not a key here (? lists the keys)");
+}
+
+#[test]
+fn saving_keeps_the_files_comments_and_layout() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let original = std::fs::read_to_string(concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/wings/survey-drone.toml"
+    ))
+    .expect("example reads");
+    let path = dir.path().join("drone.toml");
+    std::fs::write(&path, &original).expect("write");
+    let wing = file::read(&path).expect("reads");
+    let doc = Doc::new(wing, Some(path.clone()), Options::default());
+    let mut app = App::new(
+        vec![doc],
+        Theme::monochrome(UNICODE),
+        tui_support::settings(dir.path()),
+    );
+    // Root chord 0.30 -> 0.32, then a station halfway to the tip, then save.
+    press(&mut app, "l\n");
+    retype(&mut app, "0.32\n");
+    press(&mut app, "is");
+    assert!(!app.doc().unsaved(), "{:?}", app.status);
+    assert_eq!(app.doc().wing.stations.len(), 3);
+    let saved = std::fs::read_to_string(&path).expect("saved");
+    let comments = |t: &str| -> Vec<String> {
+        t.lines()
+            .filter_map(|l| l.find('#').map(|at| l[at..].to_string()))
+            .collect()
+    };
+    assert_eq!(comments(&saved), comments(&original), "{saved}");
+    assert!(saved.contains("chord = 0.32              # m\n"), "{saved}");
+    assert_eq!(saved.matches("[[station]]").count(), 3, "{saved}");
+    assert_eq!(file::read(&path).expect("reads back"), app.doc().wing);
+}
+
+#[test]
+fn a_condition_change_re_solves_like_a_fresh_solve() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    // Solution has no PartialEq: its Debug text holds every number at full precision.
+    let fresh = |app: &App| {
+        let s = gammaline::tui::doc::solve(&app.doc().wing, Options::default());
+        format!("{s:?}")
+    };
+    let shown = |app: &App| format!("{:?}", app.doc().solved);
+    // To the condition bar (stations, airfoils, controls, condition), alpha up a step.
+    press(&mut app, "\t\t\t+");
+    assert_eq!(app.doc().cursor.sheet, Sheet::Condition);
+    assert_eq!(app.doc().wing.condition.alpha_deg, 6.1, "{:?}", app.status);
+    assert_eq!(shown(&app), fresh(&app));
+    // Then a planform change: the kept system must not be reused.
+    press(&mut app, "\tl+");
+    assert_eq!(app.doc().wing.stations[0].chord, 1.61, "{:?}", app.status);
+    assert_eq!(shown(&app), fresh(&app));
+    press(&mut app, "\t\t\t-");
+    assert_eq!(shown(&app), fresh(&app));
 }

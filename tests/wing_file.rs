@@ -108,11 +108,14 @@ fn check_prints_each_fixtures_error_and_exits_2() {
 #[test]
 fn a_missing_file_is_reported_at_its_path() {
     let e = file::read(Path::new("tests/fixtures/no-such-wing.toml")).expect_err("missing");
+    assert!(matches!(e, file::ReadError::Unreadable { .. }), "{e:?}");
     let line = e.to_string();
+    // The path first, no made-up line:column or field for a file that was never read.
     assert!(
-        line.starts_with("tests/fixtures/no-such-wing.toml:1:1: file: "),
+        line.starts_with("tests/fixtures/no-such-wing.toml: cannot read: "),
         "{line}"
     );
+    assert_eq!(line.lines().count(), 1, "{line}");
 }
 
 #[test]
@@ -398,4 +401,110 @@ fn the_error_lines_quoted_in_the_docs_are_the_fixtures_own() {
         let text = std::fs::read_to_string(manifest().join(path)).expect(path);
         assert_eq!(line, expected_error(&text, Path::new(path)));
     }
+}
+
+/// The survey drone's file: comments on their own lines and after values.
+fn commented() -> (String, Wing) {
+    let text = std::fs::read_to_string(manifest().join("wings/survey-drone.toml")).expect("reads");
+    let wing = file::parse(&text, Path::new("survey-drone.toml")).expect("parses");
+    (text, wing)
+}
+
+#[test]
+fn editing_an_unchanged_wing_gives_back_the_same_text() {
+    for path in toml_files("wings") {
+        let text = std::fs::read_to_string(manifest().join(&path)).expect("reads");
+        let wing = file::parse(&text, &path).expect("parses");
+        assert_eq!(file::edit_toml(&text, &wing), text, "{}", path.display());
+    }
+}
+
+#[test]
+fn saving_into_the_file_keeps_comments_and_changes_only_the_values() {
+    let (text, mut wing) = commented();
+    wing.stations[0].chord = 0.32;
+    let middle = Station {
+        y: 0.8,
+        chord: 0.225,
+        twist_deg: -1.0,
+        airfoil: "root".into(),
+        x_le: 0.01875,
+        z: 0.0,
+    };
+    wing.stations.insert(1, middle);
+    let edited = file::edit_toml(&text, &wing);
+    let again = file::parse(&edited, Path::new("edited.toml")).expect("reads back");
+    assert_eq!(again, wing);
+    let comments = |t: &str| -> Vec<String> {
+        t.lines()
+            .filter_map(|l| l.find('#').map(|at| l[at..].to_string()))
+            .collect()
+    };
+    assert_eq!(comments(&edited), comments(&text), "{edited}");
+    // The edited chord keeps its comment, at its column.
+    assert!(
+        edited.contains("chord = 0.32              # m\n"),
+        "{edited}"
+    );
+    // Lines not touched by the change are as they were, in order; the new station is there.
+    let kept: Vec<&str> = text
+        .lines()
+        .filter(|l| !l.starts_with("chord = 0.30"))
+        .collect();
+    let mut rest = edited.lines();
+    for line in &kept {
+        assert!(
+            rest.any(|l| l == *line),
+            "{line:?} missing or out of order in\n{edited}"
+        );
+    }
+    assert!(edited.contains("y = 0.8\n"), "{edited}");
+}
+
+#[test]
+fn saving_into_the_file_follows_removed_rows_renames_and_a_target_cl() {
+    let (text, mut wing) = commented();
+    wing.controls.clear();
+    let tip = wing.airfoils.remove("tip").expect("tip airfoil");
+    wing.airfoils.insert(
+        "outer".into(),
+        Airfoil {
+            cl_max: 1.25,
+            ..tip
+        },
+    );
+    wing.stations[1].airfoil = "outer".into();
+    wing.condition.target_cl = Some(0.5);
+    wing.name = "Survey drone, edited".into();
+    let edited = file::edit_toml(&text, &wing);
+    let again = file::parse(&edited, Path::new("edited.toml")).expect("reads back");
+    // A file with a target CL has no alpha: it reads back as the default.
+    wing.condition.alpha_deg = Condition::default().alpha_deg;
+    assert_eq!(again, wing);
+    assert!(!edited.contains("[[control]]"), "{edited}");
+    assert!(
+        edited.contains("[airfoil.outer]           # properties blend linearly"),
+        "the renamed table keeps its comment:\n{edited}"
+    );
+    assert!(
+        edited.contains("cl = 0.5                  # deg, angle of attack"),
+        "alpha became cl in place:\n{edited}"
+    );
+    assert!(
+        edited.starts_with("# A small electric survey drone"),
+        "{edited}"
+    );
+    // And back: controls and alpha again, appended where the format allows.
+    let (_, original) = commented();
+    let back = file::edit_toml(&edited, &original);
+    assert_eq!(
+        file::parse(&back, Path::new("back.toml")).expect("reads"),
+        original
+    );
+}
+
+#[test]
+fn text_that_is_not_a_wing_is_replaced_by_the_written_wing() {
+    let (_, wing) = commented();
+    assert_eq!(file::edit_toml("not = [toml", &wing), file::to_toml(&wing));
 }

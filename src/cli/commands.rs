@@ -83,9 +83,9 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
         .map_err(|e| format!("{}: {e}", path.display()))?;
     warn(path, &s.warnings);
     match args.format {
-        Format::Line => emit(&format!("{}\n", report::line(&wing, &s))),
-        Format::Table => emit(&report::table(&wing, &s)),
-        Format::Json => emit(&format!("{}\n", report::json(&wing, &s))),
+        Format::Line => emit(&format!("{}\n", report::line(&wing, &s, c.target_cl))),
+        Format::Table => emit(&report::table(&wing, &s, c.target_cl)),
+        Format::Json => emit(&format!("{}\n", report::json(&wing, &s, c.target_cl))),
         Format::Csv => emit(&report::csv(&s)),
     }
 }

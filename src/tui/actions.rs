@@ -111,8 +111,22 @@ pub fn expand_home(path: &Path) -> PathBuf {
     }
 }
 
+/// The text a wing is saved as: the file it came from edited in place (its comments and
+/// layout kept) when that file still reads, else the wing written afresh.
+fn saved_text(app: &App) -> String {
+    let doc = app.doc();
+    match doc
+        .path
+        .as_ref()
+        .and_then(|p| std::fs::read_to_string(p).ok())
+    {
+        Some(original) => file::edit_toml(&original, &doc.wing),
+        None => file::to_toml(&doc.wing),
+    }
+}
+
 fn write(app: &mut App, path: &Path) -> Result<(), String> {
-    let text = file::to_toml(&app.doc().wing);
+    let text = saved_text(app);
     write_atomic(path, text.as_bytes())
         .map_err(|e| format!("cannot save {}: {e}", path.display()))?;
     let doc = app.current_doc_mut();
@@ -146,7 +160,7 @@ pub fn revert(app: &mut App) {
 /// appends it to the notebook file.
 pub fn copy(app: &mut App) {
     let line = match &app.doc().solved {
-        Ok(s) => report::line(&app.doc().wing, s),
+        Ok(s) => report::line(&app.doc().wing, s, app.doc().wing.condition.target_cl),
         Err(reason) => {
             let msg = format!("nothing to copy: {reason}");
             app.say(&msg, true);

@@ -2,7 +2,7 @@
 
 use std::path::{Path, PathBuf};
 
-use crossterm::event::{KeyEvent, KeyEventKind};
+use crossterm::event::{KeyCode, KeyEvent, KeyEventKind};
 use ratatui::layout::Size;
 
 use super::cells::{self, Field, Sheet};
@@ -175,11 +175,15 @@ impl App {
         }
         match keymap::lookup(self.mode.kind(), &event) {
             Some(action) => self.update(action),
-            None => {
-                if let Mode::Edit(editor) = &mut self.mode {
-                    editor.input(event);
+            None => match &mut self.mode {
+                Mode::Edit(editor) => editor.input(event),
+                // A typed character that does nothing says so; Esc and the like stay quiet.
+                Mode::Normal if matches!(event.code, KeyCode::Char(_)) => {
+                    let msg = keymap::unbound_message(ModeKind::Normal, &event);
+                    self.say(&msg, false);
                 }
-            }
+                _ => {}
+            },
         }
     }
 

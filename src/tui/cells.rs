@@ -1,6 +1,7 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
+use crate::text::fixed;
 use crate::wing::{ControlKind, Wing};
 
 /// A pane of cells.
@@ -123,24 +124,25 @@ impl Field {
         }
     }
 
-    /// Column heading with unit.
+    /// Column heading with unit (the key itself where that says it all).
     #[must_use]
     pub const fn title(self) -> &'static str {
         match self {
             Self::Y => "y m",
             Self::Chord => "chord m",
-            Self::Twist => "twist",
-            Self::Airfoil | Self::AirfoilKey => "airfoil",
+            Self::AirfoilKey => "airfoil",
             Self::XLe => "x_le m",
             Self::Z => "z m",
             Self::LiftSlope => "a0/rad",
             Self::AlphaZeroLift => "a_L0",
-            Self::ClMax => "cl_max",
-            Self::Cd0 => "cd0",
-            Self::Cd1 => "cd1",
-            Self::Cd2 => "cd2",
-            Self::Name => "name",
-            Self::Kind => "kind",
+            Self::Twist
+            | Self::Airfoil
+            | Self::ClMax
+            | Self::Cd0
+            | Self::Cd1
+            | Self::Cd2
+            | Self::Name
+            | Self::Kind => self.key(),
             Self::YInner => "y_in m",
             Self::YOuter => "y_out m",
             Self::ChordFraction => "cf/c",
@@ -306,10 +308,10 @@ pub fn display(wing: &Wing, row: usize, field: Field) -> String {
         return "-".into();
     };
     match field {
-        Field::Cd0 | Field::Cd1 | Field::Cd2 => format!("{v:.4}"),
-        Field::Speed | Field::Altitude => format!("{v:.1}"),
-        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => format!("{v:.2}"),
-        _ => format!("{v:.3}"),
+        Field::Cd0 | Field::Cd1 | Field::Cd2 => fixed(v, 4),
+        Field::Speed | Field::Altitude => fixed(v, 1),
+        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => fixed(v, 2),
+        _ => fixed(v, 3),
     }
 }
 
@@ -366,44 +368,35 @@ pub fn set(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(),
 
 fn set_number(wing: &mut Wing, row: usize, field: Field, v: f64) {
     let key = airfoil_key(wing, row).map(str::to_string);
-    if let Some(s) = wing.stations.get_mut(row) {
-        match field {
-            Field::Y => s.y = v,
-            Field::Chord => s.chord = v,
-            Field::Twist => s.twist_deg = v,
-            Field::XLe => s.x_le = v,
-            Field::Z => s.z = v,
-            _ => {}
-        }
-    }
-    if let Some(a) = key.and_then(|k| wing.airfoils.get_mut(&k)) {
-        match field {
-            Field::LiftSlope => a.lift_slope = v,
-            Field::AlphaZeroLift => a.alpha_zero_lift_deg = v,
-            Field::ClMax => a.cl_max = v,
-            Field::Cd0 => a.cd0 = v,
-            Field::Cd1 => a.cd1 = v,
-            Field::Cd2 => a.cd2 = v,
-            _ => {}
-        }
-    }
-    if let Some(c) = wing.controls.get_mut(row) {
-        match field {
-            Field::YInner => c.y_inner = v,
-            Field::YOuter => c.y_outer = v,
-            Field::ChordFraction => c.chord_fraction = v,
-            Field::Deflection => c.deflection_deg = v,
-            Field::Effectiveness => c.effectiveness = Some(v),
-            _ => {}
-        }
-    }
+    let s = wing.stations.get_mut(row);
+    let a = key.and_then(|k| wing.airfoils.get_mut(&k));
+    let c = wing.controls.get_mut(row);
     let cond = &mut wing.condition;
-    match field {
-        Field::Alpha => cond.alpha_deg = v,
-        Field::TargetCl => cond.target_cl = Some(v),
-        Field::Speed => cond.speed = v,
-        Field::Altitude => cond.altitude = v,
-        _ => {}
+    let slot = match field {
+        Field::Y => s.map(|s| &mut s.y),
+        Field::Chord => s.map(|s| &mut s.chord),
+        Field::Twist => s.map(|s| &mut s.twist_deg),
+        Field::XLe => s.map(|s| &mut s.x_le),
+        Field::Z => s.map(|s| &mut s.z),
+        Field::LiftSlope => a.map(|a| &mut a.lift_slope),
+        Field::AlphaZeroLift => a.map(|a| &mut a.alpha_zero_lift_deg),
+        Field::ClMax => a.map(|a| &mut a.cl_max),
+        Field::Cd0 => a.map(|a| &mut a.cd0),
+        Field::Cd1 => a.map(|a| &mut a.cd1),
+        Field::Cd2 => a.map(|a| &mut a.cd2),
+        Field::YInner => c.map(|c| &mut c.y_inner),
+        Field::YOuter => c.map(|c| &mut c.y_outer),
+        Field::ChordFraction => c.map(|c| &mut c.chord_fraction),
+        Field::Deflection => c.map(|c| &mut c.deflection_deg),
+        Field::Effectiveness => c.map(|c| c.effectiveness.insert(v)),
+        Field::Alpha => Some(&mut cond.alpha_deg),
+        Field::TargetCl => Some(cond.target_cl.insert(v)),
+        Field::Speed => Some(&mut cond.speed),
+        Field::Altitude => Some(&mut cond.altitude),
+        Field::Airfoil | Field::AirfoilKey | Field::Name | Field::Kind => None,
+    };
+    if let Some(slot) = slot {
+        *slot = v;
     }
 }
 
@@ -483,12 +476,22 @@ pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
                         .then(|| crate::solver::controls::effectiveness(c))
                 })
                 .unwrap_or(0.0);
-            let step = field.step();
-            // Round to the step grid so repeated nudges give tidy values.
-            let v = ((base + f64::from(steps) * step) / step).round() * step;
+            let v = on_grid(base + f64::from(steps) * field.step(), field.step());
             set_number(wing, row, field, v);
             true
         }
+    }
+}
+
+/// `v` rounded to a multiple of `step`, as the nearest double to that decimal (so a nudged
+/// 6.0 + 0.1 is 6.1, not 6.1000000000000005, on screen, in the editor and in a saved file).
+/// Steps below 1 are fractions 1/k with k whole, so dividing by k rounds only once.
+fn on_grid(v: f64, step: f64) -> f64 {
+    if step >= 1.0 {
+        (v / step).round() * step
+    } else {
+        let per = (1.0 / step).round();
+        (v * per).round() / per
     }
 }
 

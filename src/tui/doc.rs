@@ -3,7 +3,7 @@
 use std::path::PathBuf;
 
 use super::cells::Sheet;
-use crate::solver::{self, Options, Solution};
+use crate::solver::{self, Options, Prepared, Solution};
 use crate::wing::Wing;
 
 /// Most undo steps kept per wing.
@@ -47,6 +47,30 @@ pub struct Doc {
     pub cursor: Cursor,
     /// The solution of `wing`, or why there is none (already cleaned for display).
     pub solved: Result<Solution, String>,
+    /// The factored system behind `solved`, kept so a change of the condition alone (alpha,
+    /// target CL, speed, altitude) re-solves without building it again.
+    prepared: Option<PreparedFor>,
+}
+
+/// A prepared system and what it was prepared from.
+#[derive(Debug, Clone)]
+struct PreparedFor {
+    wing: Wing,
+    options: Options,
+    prepared: Prepared,
+}
+
+impl PreparedFor {
+    /// Whether `wing` differs from the prepared one at most in its condition and name, which
+    /// the system does not depend on.
+    fn fits(&self, wing: &Wing, options: Options) -> bool {
+        let w = &self.wing;
+        self.options == options
+            && w.symmetric == wing.symmetric
+            && w.stations == wing.stations
+            && w.airfoils == wing.airfoils
+            && w.controls == wing.controls
+    }
 }
 
 /// Solves a wing at its own condition; the error is one line for the status area.
@@ -61,16 +85,18 @@ impl Doc {
     #[must_use]
     pub fn new(wing: Wing, path: Option<PathBuf>, options: Options) -> Self {
         let saved = path.as_ref().map(|_| wing.clone());
-        let solved = solve(&wing, options);
-        Self {
+        let mut doc = Self {
             wing,
             path,
             saved,
             undo: Vec::new(),
             redo: Vec::new(),
             cursor: Cursor::default(),
-            solved,
-        }
+            solved: Err(String::new()),
+            prepared: None,
+        };
+        doc.resolve(options);
+        doc
     }
 
     /// True when the wing differs from its file (or has no file).
@@ -119,8 +145,34 @@ impl Doc {
         true
     }
 
-    /// Re-solves the current wing.
+    /// Re-solves the current wing, reusing the prepared system when only the condition (or
+    /// the name) changed.
     pub fn resolve(&mut self, options: Options) {
-        self.solved = solve(&self.wing, options);
+        if !self
+            .prepared
+            .as_ref()
+            .is_some_and(|p| p.fits(&self.wing, options))
+        {
+            self.prepared = None;
+            match solver::prepare(&self.wing, options) {
+                Ok(prepared) => {
+                    self.prepared = Some(PreparedFor {
+                        wing: self.wing.clone(),
+                        options,
+                        prepared,
+                    });
+                }
+                Err(e) => {
+                    self.solved = Err(crate::text::inert(&e.to_string()));
+                    return;
+                }
+            }
+        }
+        if let Some(p) = &self.prepared {
+            self.solved = p
+                .prepared
+                .solve(&self.wing.condition)
+                .map_err(|e| crate::text::inert(&e.to_string()));
+        }
     }
 }

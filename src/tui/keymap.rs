@@ -481,11 +481,39 @@ pub const BINDINGS: &[Binding] = &[
 /// The action bound to a key in a mode.
 #[must_use]
 pub fn lookup(mode: ModeKind, event: &KeyEvent) -> Option<Action> {
+    binding(mode, event).map(|b| b.action)
+}
+
+fn binding(mode: ModeKind, event: &KeyEvent) -> Option<&'static Binding> {
     BINDINGS
         .iter()
         .filter(|b| b.modes.contains(&mode))
         .find(|b| b.keys.iter().any(|key| key.matches(event)))
-        .map(|b| b.action)
+}
+
+/// What the status line says about a key that does nothing in `mode`, so no key is silently
+/// ignored: when the same letter in the other case is a key, it is named with its help.
+#[must_use]
+pub fn unbound_message(mode: ModeKind, event: &KeyEvent) -> String {
+    let pressed = Key {
+        code: event.code,
+        ctrl: event.modifiers.contains(KeyModifiers::CONTROL),
+    };
+    let other_case = match event.code {
+        KeyCode::Char(c) if c.is_lowercase() => c.to_uppercase().next(),
+        KeyCode::Char(c) => c.to_lowercase().next(),
+        _ => None,
+    };
+    let hint = other_case
+        .and_then(|c| {
+            let b = binding(mode, &KeyEvent::new(KeyCode::Char(c), event.modifiers))?;
+            Some(format!("; {c} does: {}", b.help))
+        })
+        .unwrap_or_default();
+    format!(
+        "{} is not a key here{hint} (? lists the keys)",
+        pressed.label()
+    )
 }
 
 /// The keys of a binding joined for display, e.g. `k Up`.

@@ -12,8 +12,10 @@ use toml::Spanned;
 use super::validate::{self, Place};
 use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
 
+mod edit;
 mod locate;
 
+pub use edit::edit_toml;
 use locate::Locator;
 
 /// A wing file that cannot be used, located to the character.
@@ -34,20 +36,34 @@ pub struct WingFileError {
     pub reason: String,
 }
 
+/// Why a wing file could not be used: it could not be read at all, or it was read and is
+/// not a valid wing.
+#[derive(Debug, thiserror::Error)]
+pub enum ReadError {
+    /// The file could not be read (missing, a folder, no permission, not UTF-8); there is no
+    /// line or column to point at.
+    #[error("{}: cannot read: {source}", path.display())]
+    Unreadable {
+        /// The file.
+        path: PathBuf,
+        /// What the system said.
+        source: std::io::Error,
+    },
+    /// The text is not a valid wing, located to the character.
+    #[error(transparent)]
+    Invalid(#[from] WingFileError),
+}
+
 /// Reads and validates a wing file.
 ///
 /// # Errors
-/// The first problem in the file, or an I/O failure reported at 1:1.
-pub fn read(path: &Path) -> Result<Wing, WingFileError> {
-    let text = std::fs::read_to_string(path).map_err(|e| WingFileError {
+/// [`ReadError::Unreadable`] when the file cannot be read, else the first problem in it.
+pub fn read(path: &Path) -> Result<Wing, ReadError> {
+    let text = std::fs::read_to_string(path).map_err(|source| ReadError::Unreadable {
         path: path.to_path_buf(),
-        line: 1,
-        column: 1,
-        place: "file".into(),
-        field: "-".into(),
-        reason: format!("cannot read: {e}"),
+        source,
     })?;
-    parse(&text, path)
+    Ok(parse(&text, path)?)
 }
 
 /// Parses and validates wing-file text; `path` is used in error messages and for the default

@@ -1,5 +1,6 @@
-//! Frame time of the workbench: one keystroke (a chord nudge, which re-solves) plus a full
-//! redraw of a 200-station wing into a TestBackend, at 80x24 and 160x50.
+//! Frame time of the workbench: one keystroke (a chord nudge, which re-prepares and re-solves;
+//! an alpha nudge, which re-solves the kept system) plus a full redraw of a 200-station wing
+//! into a TestBackend, at 80x24 and 160x50.
 
 use std::collections::BTreeMap;
 
@@ -67,18 +68,34 @@ fn keystroke(c: &mut Criterion) {
         let mut terminal = Terminal::new(TestBackend::new(w, h)).expect("test backend");
         let mut up = true;
         group.bench_function(BenchmarkId::from_parameter(format!("{w}x{h}")), |b| {
-            b.iter(|| {
-                // Alternate up and down so the wing stays valid and the undo stack bounded.
-                let key = if up { '+' } else { '-' };
-                up = !up;
-                app.handle_key(KeyEvent::new(KeyCode::Char(key), KeyModifiers::NONE));
-                terminal
-                    .draw(|f| gammaline::tui::view::render(&app, f.area(), f.buffer_mut()))
-                    .expect("draw");
-            });
+            b.iter(|| nudge_and_draw(&mut app, &mut terminal, &mut up));
         });
     }
     group.finish();
+}
+
+/// One nudge of the selected value and a full frame. Alternates up and down so the wing
+/// stays valid and the undo stack bounded.
+fn nudge_and_draw(app: &mut App, terminal: &mut Terminal<TestBackend>, up: &mut bool) {
+    let key = if *up { '+' } else { '-' };
+    *up = !*up;
+    app.handle_key(KeyEvent::new(KeyCode::Char(key), KeyModifiers::NONE));
+    terminal
+        .draw(|f| gammaline::tui::view::render(app, f.area(), f.buffer_mut()))
+        .expect("draw");
+}
+
+fn alpha_nudge(c: &mut Criterion) {
+    let mut app = app(200);
+    // Tab through airfoils and controls to the condition bar; its first value is alpha.
+    for _ in 0..3 {
+        app.handle_key(KeyEvent::new(KeyCode::Tab, KeyModifiers::NONE));
+    }
+    let mut terminal = Terminal::new(TestBackend::new(80, 24)).expect("test backend");
+    let mut up = true;
+    c.bench_function("alpha_nudge_and_frame_200_stations_80x24", |b| {
+        b.iter(|| nudge_and_draw(&mut app, &mut terminal, &mut up));
+    });
 }
 
 fn redraw_only(c: &mut Criterion) {
@@ -93,5 +110,5 @@ fn redraw_only(c: &mut Criterion) {
     });
 }
 
-criterion_group!(benches, keystroke, redraw_only);
+criterion_group!(benches, keystroke, alpha_nudge, redraw_only);
 criterion_main!(benches);

@@ -6,6 +6,7 @@ use ratatui::layout::Rect;
 use ratatui::widgets::Widget;
 
 use super::put;
+use crate::text::fixed;
 use crate::tui::app::{App, Mode};
 use crate::tui::cells::{self, Field, Sheet};
 use crate::tui::editor::Purpose;
@@ -21,12 +22,7 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     let label_style = if focus { t.header } else { t.dim };
     let mut x = put(buf, area.x, area.y, area.width, "condition ", label_style);
     for (col, field) in app.columns(Sheet::Condition).iter().enumerate() {
-        let name = match field {
-            Field::Alpha => " alpha",
-            Field::TargetCl => " target CL",
-            Field::Speed => " speed",
-            _ => " altitude",
-        };
+        let (name, unit) = label_and_unit(*field);
         x = put(buf, x, area.y, area.right().saturating_sub(x), name, t.text);
         x = put(buf, x, area.y, area.right().saturating_sub(x), " ", t.text);
         let selected = focus && doc.cursor.col == col;
@@ -42,18 +38,15 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             ),
             buf,
         );
-        let unit = match field {
-            Field::Alpha => " deg",
-            Field::Speed => " m/s",
-            Field::Altitude => " m",
-            _ => "",
-        };
         x = put(buf, x, area.y, area.right().saturating_sub(x), unit, t.dim);
     }
     if let Ok(s) = &doc.solved {
         let extra = format!(
-            "   AR {:.2}  S {:.3} m2  M {:.3}  Re {:.2e}",
-            s.geometry.aspect_ratio, s.geometry.area, s.flight.mach, s.flight.reynolds_mac
+            "   AR {}  S {} m2  M {}  Re {:.2e}",
+            fixed(s.geometry.aspect_ratio, 2),
+            fixed(s.geometry.area, 3),
+            fixed(s.flight.mach, 3),
+            s.flight.reynolds_mac
         );
         put(
             buf,
@@ -63,6 +56,16 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             &extra,
             t.dim,
         );
+    }
+}
+
+/// A condition value's name before it and its unit after it.
+const fn label_and_unit(field: Field) -> (&'static str, &'static str) {
+    match field {
+        Field::Alpha => (" alpha", " deg"),
+        Field::TargetCl => (" target CL", ""),
+        Field::Speed => (" speed", " m/s"),
+        _ => (" altitude", " m"),
     }
 }
 

@@ -19,6 +19,7 @@ use ratatui::widgets::{Block, Clear, Paragraph, Widget, Wrap};
 
 use super::app::{App, Mode};
 use super::cells::Sheet;
+use crate::solver::Solution;
 
 /// Smallest terminal the workbench lays out in.
 pub const MIN_WIDTH: u16 = 80;
@@ -82,6 +83,31 @@ pub fn put(buf: &mut Buffer, x: u16, y: u16, width: u16, text: &str, style: Styl
     let width = width.min(area.right() - x);
     let (end, _) = buf.set_stringn(x, y, text, usize::from(width), style);
     end
+}
+
+/// The current wing's solution; when there is none, `label` and the reason are written at the
+/// top of `area` in the invalid style (the reason on the next row when `own_row`) and `None`
+/// comes back, so the pane draws nothing else.
+pub fn solution_or_reason<'a>(
+    app: &'a App,
+    area: Rect,
+    buf: &mut Buffer,
+    label: &str,
+    own_row: bool,
+) -> Option<&'a Solution> {
+    let reason = match &app.doc().solved {
+        Ok(s) => return Some(s),
+        Err(reason) => reason,
+    };
+    let style = app.theme.invalid;
+    if own_row {
+        put(buf, area.x, area.y, area.width, label, style);
+        put(buf, area.x, area.y + 1, area.width, reason, style);
+    } else {
+        let text = format!("{label} {reason}");
+        put(buf, area.x, area.y, area.width, &text, style);
+    }
+    None
 }
 
 /// `text` cut or padded to exactly `width` characters, right-aligned when `right`.

@@ -12,6 +12,7 @@ use ratatui::widgets::Widget;
 use super::sparkline::{self, Limit};
 use super::{block, put};
 use crate::solver::Solution;
+use crate::text::fixed;
 use crate::tui::app::App;
 
 /// Width of the series label at the left of each row.
@@ -36,27 +37,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     if inner.width <= LABEL + 2 || inner.height < 6 {
         return;
     }
-    let s = match &app.doc().solved {
-        Ok(s) => s,
-        Err(reason) => {
-            put(
-                buf,
-                inner.x,
-                inner.y,
-                inner.width,
-                "no solution:",
-                app.theme.invalid,
-            );
-            put(
-                buf,
-                inner.x,
-                inner.y + 1,
-                inner.width,
-                reason,
-                app.theme.invalid,
-            );
-            return;
-        }
+    let Some(s) = super::solution_or_reason(app, inner, buf, "no solution:", true) else {
+        return;
     };
     let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
     let (y0, y1) = y_range(s, reference);
@@ -311,8 +293,8 @@ pub fn short(v: f64) -> String {
     if a != 0.0 && !(0.01..10_000.0).contains(&a) {
         format!("{v:.1e}")
     } else if a >= 100.0 {
-        format!("{v:.0}")
+        fixed(v, 0)
     } else {
-        format!("{v:.2}")
+        fixed(v, 2)
     }
 }

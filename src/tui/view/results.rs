@@ -7,7 +7,7 @@ use ratatui::style::Style;
 
 use super::put;
 use crate::solver::Solution;
-use crate::text::inert;
+use crate::text::{fixed, inert, signed};
 use crate::tui::app::App;
 
 /// One number in the strip.
@@ -29,14 +29,11 @@ pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
     let ld =
         |s: &Solution| (s.coefficients.cd > 0.0).then(|| s.coefficients.cl / s.coefficients.cd);
     let mut add = |label, v: Option<f64>, r: Option<f64>, digits: usize, unit: &str| {
-        let v = v.map(|v| no_negative_zero(v, digits));
         out.push(Item {
             label,
-            value: v.map_or_else(|| "n/a".into(), |v| format!("{v:.digits$}{unit}")),
+            value: v.map_or_else(|| "n/a".into(), |v| format!("{}{unit}", fixed(v, digits))),
             delta: match (v, r) {
-                (Some(v), Some(r)) => {
-                    Some(format!("{:+.digits$}", no_negative_zero(v - r, digits)))
-                }
+                (Some(v), Some(r)) => Some(signed(v - r, digits)),
                 _ => None,
             },
         });
@@ -71,16 +68,6 @@ pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
     out
 }
 
-/// Values that round to zero are shown as 0, never -0.
-fn no_negative_zero(v: f64, digits: usize) -> f64 {
-    let half_unit = 0.5 * 10f64.powi(-i32::try_from(digits).unwrap_or(0));
-    if v.abs() < half_unit {
-        0.0
-    } else {
-        v
-    }
-}
-
 /// Rows the strip needs: deltas against a reference take a row more.
 #[must_use]
 pub fn height(app: &App) -> u16 {
@@ -97,19 +84,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     if area.height == 0 {
         return;
     }
-    let s = match &app.doc().solved {
-        Ok(s) => s,
-        Err(reason) => {
-            put(
-                buf,
-                area.x,
-                area.y,
-                area.width,
-                &format!("not solved: {reason}"),
-                t.invalid,
-            );
-            return;
-        }
+    let Some(s) = super::solution_or_reason(app, area, buf, "not solved:", false) else {
+        return;
     };
     let reference = app.reference.as_ref().and_then(|r| r.solved.as_ref().ok());
     let delta_mark = t.glyphs.delta;
