@@ -85,13 +85,10 @@ pub struct PairSums {
     pub induced: (f64, f64),
 }
 
-/// Angles evaluated side by side for four weighted sums: the Chebyshev recurrence is a serial
-/// chain, so running several independent chains at once keeps the floating-point units busy.
-/// (More lanes would not fit the accumulators in the registers.)
-pub const PAIR_LANES: usize = 4;
-
-/// Angles side by side for two weighted sums, which leave room for more chains.
-pub const LOAD_LANES: usize = 4;
+/// Angles evaluated side by side: the Chebyshev recurrence is a serial chain, so running
+/// several independent chains at once keeps the floating-point units busy (2, 4 and 8 lanes
+/// measured alike here; 4 keeps the accumulators in registers).
+const LANES: usize = 4;
 
 /// Weighted Chebyshev sums at one angle, split by the parity of n:
 /// `odd[k] = sum over odd n of w_n[k] U_{n-1}(cos theta)`, `even[k]` likewise over even n.
@@ -121,11 +118,7 @@ impl<const K: usize> ParitySums<K> {
 }
 
 #[inline(always)]
-fn accumulate<const K: usize, const L: usize>(
-    acc: &mut [[f64; L]; K],
-    weights: &[f64; K],
-    u: &[f64; L],
-) {
+fn accumulate<const K: usize>(acc: &mut [[f64; LANES]; K], weights: &[f64; K], u: &[f64; LANES]) {
     for (sum, &w) in acc.iter_mut().zip(weights) {
         for (slot, &value) in sum.iter_mut().zip(u) {
             *slot += w * value;
@@ -137,32 +130,28 @@ fn accumulate<const K: usize, const L: usize>(
 /// from U_{k+1} = 2x U_k - U_{k-1} applied twice: it runs the even-index and the odd-index
 /// U side by side as independent chains, so neither waits for the other.
 #[inline(always)]
-fn advance<const L: usize>(c: &[f64; L], previous: &mut [f64; L], current: &mut [f64; L]) {
-    for lane in 0..L {
+fn advance(c: &[f64; LANES], previous: &mut [f64; LANES], current: &mut [f64; LANES]) {
+    for lane in 0..LANES {
         let next = c[lane] * current[lane] - previous[lane];
         previous[lane] = current[lane];
         current[lane] = next;
     }
 }
 
-/// [`ParitySums`] of `weights` (one row per n = 1..N) at each angle given by its cosine,
-/// `L` angles at a time.
+/// [`ParitySums`] of `weights` (one row per n = 1..N) at each angle given by its cosine.
 #[must_use]
-pub fn parity_sums<const K: usize, const L: usize>(
-    weights: &[[f64; K]],
-    cosines: &[f64],
-) -> Vec<ParitySums<K>> {
+pub fn parity_sums<const K: usize>(weights: &[[f64; K]], cosines: &[f64]) -> Vec<ParitySums<K>> {
     let mut out = Vec::with_capacity(cosines.len());
-    for chunk in cosines.chunks(L) {
-        let mut x = [0.0; L];
+    for chunk in cosines.chunks(LANES) {
+        let mut x = [0.0; LANES];
         x[..chunk.len()].copy_from_slice(chunk);
-        let c: [f64; L] = std::array::from_fn(|lane| 4.0 * x[lane] * x[lane] - 2.0);
+        let c: [f64; LANES] = std::array::from_fn(|lane| 4.0 * x[lane] * x[lane] - 2.0);
         // U_{n-1} for odd n: U_0 = 1 from U_{-2} = -1; for even n: U_1 = 2x from U_{-1} = 0.
-        let (mut even_previous, mut even_index) = ([-1.0; L], [1.0; L]);
-        let mut odd_previous = [0.0; L];
-        let mut odd_index: [f64; L] = std::array::from_fn(|lane| 2.0 * x[lane]);
-        let mut odd = [[0.0; L]; K];
-        let mut even = [[0.0; L]; K];
+        let (mut even_previous, mut even_index) = ([-1.0; LANES], [1.0; LANES]);
+        let mut odd_previous = [0.0; LANES];
+        let mut odd_index: [f64; LANES] = std::array::from_fn(|lane| 2.0 * x[lane]);
+        let mut odd = [[0.0; LANES]; K];
+        let mut even = [[0.0; LANES]; K];
         let mut rows = weights.chunks_exact(2);
         for pair in rows.by_ref() {
             accumulate(&mut odd, &pair[0], &even_index);
@@ -215,7 +204,7 @@ impl PairSums {
 #[must_use]
 pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> Vec<PairSums> {
     let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
-    parity_sums::<4, PAIR_LANES>(&pair_weights(at_zero, per_alpha), &cosines)
+    parity_sums(&pair_weights(at_zero, per_alpha), &cosines)
         .iter()
         .zip(angles)
         .map(|(sums, &(_, sin))| PairSums::from_sums(sums.at_angle(), sin))
@@ -230,7 +219,7 @@ pub fn mirrored_pair_sums(
     angles: &[(f64, f64)],
 ) -> Vec<(PairSums, PairSums)> {
     let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
-    parity_sums::<4, PAIR_LANES>(&pair_weights(at_zero, per_alpha), &cosines)
+    parity_sums(&pair_weights(at_zero, per_alpha), &cosines)
         .iter()
         .zip(angles)
         .map(|(sums, &(_, sin))| {

@@ -6,7 +6,7 @@
 
 use std::f64::consts::PI;
 
-use super::fourier::{parity_sums, SpanMap, LOAD_LANES};
+use super::fourier::{parity_sums, SpanMap};
 use crate::wing::{Section, Sections};
 
 /// p0 + p1 alpha + p2 alpha^2 (alpha in radians).
@@ -37,6 +37,9 @@ pub struct LoadIntegrals {
     pub cn_profile: Quadratic,
     /// Induced part of Cn = (1/(S b)) integral c cl alpha_i y dy, in closed form.
     pub cn_induced: Quadratic,
+    /// sum n A_n^2, so that CDi = pi AR times this (Anderson, *Fundamentals of Aerodynamics*,
+    /// eq. 5.61): a sweep point then costs O(1).
+    pub induced_sum: Quadratic,
     /// Right-half root bending moment over q, integral_0^tip c cl y dy, m^3.
     pub right_moment: Quadratic,
     /// Left-half root bending moment over q, -integral_tip^0 c cl y dy, m^3.
@@ -87,6 +90,7 @@ pub fn integrate(
     out.right_moment = halves.right_moment;
     out.left_moment = halves.left_moment;
     out.cn_induced = induced_yaw(map, area, responses);
+    out.induced_sum = Quadratic::of_form(weighted_dot, responses);
     if sections
         .rows()
         .iter()
@@ -232,19 +236,25 @@ fn sine_product_integral(n: usize, k: usize, theta: f64, sines: &[f64]) -> f64 {
     }
 }
 
+/// sum n u_n v_n: the bilinear form behind sum n A_n^2.
+fn weighted_dot(u: &[f64], v: &[f64]) -> f64 {
+    u.iter()
+        .zip(v)
+        .enumerate()
+        .map(|(i, (a, b))| (i + 1) as f64 * a * b)
+        .sum()
+}
+
 /// Induced yawing moment in closed form, from the orthogonality of the sines:
 /// integral c cl alpha_i dy = pi b^2 sum n A_n^2 and
 /// integral c cl alpha_i (y - y_mid) dy = -(pi b^3/4) sum (2n+1) A_n A_{n+1}
-/// (integral_0^pi sin(m t) sin(n t) cos(t) dt = (pi/4)[m = n+1 or m = n-1]; the moment form of
-/// Glauert's series, as in Phillips, *Mechanics of Flight*, 2nd ed., sec. 1.8), over S b.
+/// (from integral_0^pi sin(m t) sin(n t) cos(t) dt = (pi/4)[m = n+1 or m = n-1]; derived in
+/// docs/theory.md sec. 5), both over S b.
 fn induced_yaw(map: SpanMap, area: f64, responses: Responses) -> Quadratic {
     let span = 2.0 * map.half_span;
     let form = |u: &[f64], v: &[f64]| {
-        let mut drag = 0.0;
+        let drag = weighted_dot(u, v);
         let mut offset = 0.0;
-        for (i, (a, b)) in u.iter().zip(v).enumerate() {
-            drag += (i + 1) as f64 * a * b;
-        }
         for i in 0..u.len().saturating_sub(1) {
             offset += (2 * i + 3) as f64 * u[i] * v[i + 1];
         }
@@ -290,7 +300,34 @@ fn breakpoints(
 struct Node {
     weight: f64,
     y: f64,
-    section: Section,
+    polar: LoadPolar,
+}
+
+/// The section data the load-dependent drag needs: chord and the polar's cd1, cd2.
+#[derive(Debug, Clone, Copy)]
+struct LoadPolar {
+    chord: f64,
+    cd1: f64,
+    cd2: f64,
+}
+
+impl LoadPolar {
+    fn of(section: &Section) -> Self {
+        Self {
+            chord: section.chord,
+            cd1: section.airfoil.cd1,
+            cd2: section.airfoil.cd2,
+        }
+    }
+
+    fn lerp(self, other: Self, t: f64) -> Self {
+        let mix = |p: f64, q: f64| p + (q - p) * t;
+        Self {
+            chord: mix(self.chord, other.chord),
+            cd1: mix(self.cd1, other.cd1),
+            cd2: mix(self.cd2, other.cd2),
+        }
+    }
 }
 
 /// Gauss nodes on the cells between `thetas`, with their `(cos theta, sin theta)`.
@@ -302,11 +339,11 @@ fn gauss_nodes(
     map: SpanMap,
     thetas: &[f64],
 ) -> (Vec<Node>, Vec<f64>, Vec<f64>) {
-    let ends: Vec<(f64, Section)> = thetas
+    let ends: Vec<(f64, LoadPolar)> = thetas
         .iter()
         .map(|&t| {
             let y = map.y(t);
-            (y, sections.at(y))
+            (y, LoadPolar::of(&sections.at(y)))
         })
         .collect();
     let count = GAUSS5.len() * thetas.len();
@@ -328,7 +365,7 @@ fn gauss_nodes(
                 // dy = (b/2) sin(theta) d(theta)
                 weight: weight * half * map.half_span * sin,
                 y,
-                section: s_lo.lerp(s_hi, t),
+                polar: s_lo.lerp(*s_hi, t),
             });
             cosines.push(cos);
             sines.push(sin);
@@ -374,16 +411,16 @@ fn load_dependent_profile_drag(
         .zip(per_alpha)
         .map(|(&z, &p)| [z, p])
         .collect();
-    let sums = parity_sums::<2, LOAD_LANES>(&weights, &cosines);
+    let sums = parity_sums(&weights, &cosines);
     let mut drag = Quadratic::default();
     let mut moment = Quadratic::default();
     for ((node, sum), sin) in nodes.iter().zip(&sums).zip(&sines) {
         // c*cl = 4 b sum A_n sin(n theta)
         let load = |s: [f64; 2]| (4.0 * span * s[0] * sin, 4.0 * span * s[1] * sin);
-        let here = load_dependent_drag(&node.section, load(sum.at_angle()));
+        let here = load_dependent_drag(node.polar, load(sum.at_angle()));
         if mirrored {
             // The left node at -y has the same section and weight.
-            let there = load_dependent_drag(&node.section, load(sum.at_mirror()));
+            let there = load_dependent_drag(node.polar, load(sum.at_mirror()));
             drag.add(here, node.weight);
             drag.add(there, node.weight);
             moment.add(here, node.weight * node.y);
@@ -398,15 +435,14 @@ fn load_dependent_profile_drag(
 
 /// c (cd1 cl + cd2 cl^2) = cd1 (c cl) + cd2 (c cl)^2 / c, as a quadratic in alpha, for the
 /// local load `ccl` = c cl as (value at zero alpha, value per radian).
-fn load_dependent_drag(section: &Section, ccl: (f64, f64)) -> Quadratic {
-    let polar = &section.airfoil;
+fn load_dependent_drag(polar: LoadPolar, ccl: (f64, f64)) -> Quadratic {
     let mut out = Quadratic {
         p0: polar.cd1 * ccl.0,
         p1: polar.cd1 * ccl.1,
         p2: 0.0,
     };
-    if section.chord > 0.0 {
-        let k = polar.cd2 / section.chord;
+    if polar.chord > 0.0 {
+        let k = polar.cd2 / polar.chord;
         out.p0 += k * ccl.0 * ccl.0;
         out.p1 += 2.0 * k * ccl.0 * ccl.1;
         out.p2 += k * ccl.1 * ccl.1;

@@ -330,25 +330,21 @@ impl Prepared {
             .collect()
     }
 
-    /// The integrated coefficients at `alpha` (radians): O(N) work.
+    /// The integrated coefficients at `alpha` (radians): O(1) work, every integral being a
+    /// polynomial in alpha prepared once.
     #[must_use]
     pub fn coefficients(&self, alpha: f64) -> Coefficients {
         let ar = self.geometry.aspect_ratio;
-        let mut a1 = 0.0;
-        let mut a2 = 0.0;
-        let mut sum_n_a2 = 0.0;
-        for (i, (p, z)) in self.per_alpha.iter().zip(&self.at_zero).enumerate() {
-            let a = alpha * p + z;
-            match i {
-                0 => a1 = a,
-                1 => a2 = a,
-                _ => {}
-            }
-            sum_n_a2 += (i + 1) as f64 * a * a;
-        }
+        let a1 = alpha * self.per_alpha[0] + self.at_zero[0];
+        let a2 = self
+            .per_alpha
+            .get(1)
+            .zip(self.at_zero.get(1))
+            .map_or(0.0, |(p, z)| alpha * p + z);
+        let sum_n_a2 = self.integrals.induced_sum.at(alpha).max(0.0);
         let cl = PI * ar * a1;
         let cdi = PI * ar * sum_n_a2;
-        let delta = (a1.abs() > 1e-12).then(|| sum_n_a2 / (a1 * a1) - 1.0);
+        let delta = (a1.abs() > 1e-12).then(|| (sum_n_a2 / (a1 * a1) - 1.0).max(0.0));
         let cdp = self.integrals.cdp.at(alpha);
         let cn_induced = self.integrals.cn_induced.at(alpha);
         let cn_profile = self.integrals.cn_profile.at(alpha);
