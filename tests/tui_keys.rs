@@ -200,8 +200,13 @@ fn quit_asks_only_with_unsaved_work() {
     assert!(matches!(app.mode, Mode::Confirm));
     press(&mut app, "n");
     assert!(!app.quit && matches!(app.mode, Mode::Normal));
-    press(&mut app, "qy");
-    assert!(app.quit);
+    press(&mut app, "qN");
+    assert!(
+        !app.quit && matches!(app.mode, Mode::Normal),
+        "a capital N (caps lock) also stays"
+    );
+    press(&mut app, "qY");
+    assert!(app.quit, "a capital Y also quits");
 }
 
 #[test]

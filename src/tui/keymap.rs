@@ -470,12 +470,18 @@ pub const BINDINGS: &[Binding] = &[
     ),
     bind(
         &[Confirm],
-        &[k('y')],
+        &[k('y'), k('Y')],
         Action::QuitNow,
         "quit; unsaved wings stay in the session",
         Some("quit"),
     ),
-    bind(&[Confirm], &[k('n')], Action::Cancel, "stay", Some("stay")),
+    bind(
+        &[Confirm],
+        &[k('n'), k('N')],
+        Action::Cancel,
+        "stay",
+        Some("stay"),
+    ),
 ];
 
 /// The action bound to a key in a mode.
