@@ -80,7 +80,7 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
 }
 
 /// A readable multi-line report with the spanwise table at the stations; `target_cl` as for
-/// [`line`].
+/// [`line()`].
 #[must_use]
 pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     let c = &s.coefficients;

@@ -63,19 +63,6 @@ pub fn sine_ratios(theta: f64, out: &mut [f64]) {
     }
 }
 
-/// Sums of the series at one angle: `(sum A_n sin n theta, sum n A_n sin n theta / sin theta)`.
-#[must_use]
-pub fn series_at(a: &[f64], theta: f64, ratios: &mut [f64]) -> (f64, f64) {
-    sine_ratios(theta, ratios);
-    let s = theta.sin();
-    let (mut load, mut induced) = (0.0, 0.0);
-    for (n, (&an, &u)) in a.iter().zip(ratios.iter()).enumerate() {
-        load += an * u;
-        induced += (n + 1) as f64 * an * u;
-    }
-    (load * s, induced)
-}
-
 /// The series sums of both responses at one angle, as (value at zero alpha, value per radian).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct PairSums {
@@ -199,8 +186,8 @@ impl PairSums {
     }
 }
 
-/// [`series_at`] for both responses at many angles, given as `(cos theta, sin theta)`, in one
-/// recurrence per angle.
+/// The load sum A_n sin(n theta) and the induced sum n A_n sin(n theta)/sin(theta) of both
+/// responses at many angles, given as `(cos theta, sin theta)`, in one recurrence per angle.
 #[must_use]
 pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> Vec<PairSums> {
     let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
@@ -211,55 +198,66 @@ pub fn pair_sums(at_zero: &[f64], per_alpha: &[f64], angles: &[(f64, f64)]) -> V
         .collect()
 }
 
-/// [`pair_sums`] at each angle and at its mirror pi - theta, from one recurrence per pair.
+/// Rows `[A_n(0), dA_n/dalpha]` for [`parity_sums`]: the load of both responses.
 #[must_use]
-pub fn mirrored_pair_sums(
-    at_zero: &[f64],
-    per_alpha: &[f64],
-    angles: &[(f64, f64)],
-) -> Vec<(PairSums, PairSums)> {
-    let cosines: Vec<f64> = angles.iter().map(|a| a.0).collect();
-    parity_sums(&pair_weights(at_zero, per_alpha), &cosines)
+pub fn load_weights(at_zero: &[f64], per_alpha: &[f64]) -> Vec<[f64; 2]> {
+    at_zero
         .iter()
-        .zip(angles)
-        .map(|(sums, &(_, sin))| {
-            (
-                PairSums::from_sums(sums.at_angle(), sin),
-                PairSums::from_sums(sums.at_mirror(), sin),
-            )
+        .zip(per_alpha)
+        .map(|(&z, &p)| [z, p])
+        .collect()
+}
+
+/// The inputs of the collocation system, as [`solve_collocation`] took them.
+#[derive(Debug, Clone, Copy)]
+pub struct Collocation<'a> {
+    /// `(cos theta_k, sin theta_k)` of each collocation angle.
+    pub angles: &'a [(f64, f64)],
+    /// mu_k = 4 b / (a0_k c_k).
+    pub mu: &'a [f64],
+    /// The zero-alpha right-hand side alpha_k - alpha_L0,k (twist, camber, controls).
+    pub rhs: &'a [f64],
+    /// True for a mirrored wing, whose angles come in pairs theta, pi - theta.
+    pub mirrored: bool,
+}
+
+/// [`pair_sums`] at the collocation points themselves. Only the load needs the series: the
+/// induced angle there follows from the lifting-line equation the A_n were solved to satisfy,
+/// alpha_i = alpha + rhs_k - mu_k sum A_n sin(n theta_k). A mirrored wing evaluates the right
+/// half and takes the left half from the same recurrences.
+#[must_use]
+pub fn collocation_sums(at_zero: &[f64], per_alpha: &[f64], at: Collocation) -> Vec<PairSums> {
+    let len = at.angles.len();
+    let weights = load_weights(at_zero, per_alpha);
+    let mut loads = vec![[0.0; 2]; len];
+    if at.mirrored {
+        let upper = len / 2;
+        let cosines: Vec<f64> = at.angles[upper..].iter().map(|a| a.0).collect();
+        for (i, sums) in parity_sums(&weights, &cosines).iter().enumerate() {
+            loads[len - 1 - (upper + i)] = sums.at_mirror();
+            loads[upper + i] = sums.at_angle();
+        }
+    } else {
+        let cosines: Vec<f64> = at.angles.iter().map(|a| a.0).collect();
+        for (slot, sums) in loads.iter_mut().zip(parity_sums(&weights, &cosines)) {
+            *slot = sums.at_angle();
+        }
+    }
+    loads
+        .iter()
+        .zip(at.angles)
+        .zip(at.mu.iter().zip(at.rhs))
+        .map(|((l, &(_, sin)), (&mu, &rhs))| {
+            let load = (l[0] * sin, l[1] * sin);
+            PairSums {
+                load,
+                induced: (rhs - mu * load.0, 1.0 - mu * load.1),
+            }
         })
         .collect()
 }
 
-/// [`pair_sums`] at a set of angles that come in mirrored pairs (`angles[len - 1 - i]` is
-/// pi minus `angles[i]`, as the collocation angles are): the right half is evaluated and the
-/// left half taken from the same recurrences.
-#[must_use]
-pub fn mirrored_set_sums(
-    at_zero: &[f64],
-    per_alpha: &[f64],
-    angles: &[(f64, f64)],
-) -> Vec<PairSums> {
-    let len = angles.len();
-    let upper = len / 2;
-    let pairs = mirrored_pair_sums(at_zero, per_alpha, &angles[upper..]);
-    let mut out = vec![
-        PairSums {
-            load: (0.0, 0.0),
-            induced: (0.0, 0.0)
-        };
-        len
-    ];
-    for (i, (here, there)) in pairs.into_iter().enumerate() {
-        out[upper + i] = here;
-        if upper + i != len - 1 - (upper + i) {
-            out[len - 1 - (upper + i)] = there;
-        }
-    }
-    out
-}
-
-/// The collocation matrix M[k][n-1] = sin(n theta_k) (mu_k + n / sin theta_k), with
+/// The collocation matrix `M[k][n-1]` = sin(n theta_k) (mu_k + n / sin theta_k), with
 /// mu_k = 4 b / (a0_k c_k).
 #[must_use]
 pub fn matrix(thetas: &[f64], mu: &[f64]) -> DMatrix<f64> {

@@ -6,7 +6,7 @@
 
 use std::f64::consts::PI;
 
-use super::fourier::{parity_sums, SpanMap};
+use super::fourier::{load_weights, parity_sums, SpanMap};
 use crate::wing::{Section, Sections};
 
 /// p0 + p1 alpha + p2 alpha^2 (alpha in radians).
@@ -64,7 +64,7 @@ const GAUSS5: [(f64, f64); 5] = [
 pub type Responses<'a> = (&'a [f64], &'a [f64]);
 
 /// Integrates the load polynomials of a wing whose sine-series coefficients are
-/// A_n(alpha) = `at_zero`[n] + alpha `per_alpha`[n].
+/// A_n(alpha) = `at_zero[n] + alpha * per_alpha[n]`.
 ///
 /// The lift and bending moments of each half and the induced yaw are linear or quadratic
 /// forms in the A_n with closed-form weights; the parts of the profile drag that do not
@@ -406,12 +406,7 @@ fn load_dependent_profile_drag(
     let from = if mirrored { map.theta(0.0) } else { 0.0 };
     let thetas = breakpoints(sections, map, control_edges, from, cells);
     let (nodes, cosines, sines) = gauss_nodes(sections, map, &thetas);
-    let weights: Vec<[f64; 2]> = at_zero
-        .iter()
-        .zip(per_alpha)
-        .map(|(&z, &p)| [z, p])
-        .collect();
-    let sums = parity_sums(&weights, &cosines);
+    let sums = parity_sums(&load_weights(at_zero, per_alpha), &cosines);
     let mut drag = Quadratic::default();
     let mut moment = Quadratic::default();
     for ((node, sum), sin) in nodes.iter().zip(&sums).zip(&sines) {

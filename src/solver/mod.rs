@@ -143,11 +143,13 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
     let warnings = validate::warnings(wing, &geometry);
     let scales = (geometry.span, geometry.mean_chord);
-    let sums = if wing.symmetric {
-        fourier::mirrored_set_sums(pair.0, pair.1, &angles)
-    } else {
-        fourier::pair_sums(pair.0, pair.1, &angles)
+    let at_points = fourier::Collocation {
+        angles: &angles,
+        mu: &mu,
+        rhs: &rhs,
+        mirrored: wing.symmetric,
     };
+    let sums = fourier::collocation_sums(pair.0, pair.1, at_points);
     let points = spanwise::linear_points(&ys, &point_sections, &sums, scales, &control_spans);
     let station_ys: Vec<f64> = wing.stations.iter().map(|s| s.y).collect();
     let station_angles: Vec<(f64, f64)> = station_ys

@@ -2,7 +2,7 @@
 //! sessions, over the solver core.
 //!
 //! Layout of the module: [`app`] holds the state and `update(Action)`; [`keymap`] is the one
-//! key table; [`view`] draws `&App`; [`session`](crate::session) keeps the work between runs.
+//! key table; [`view`] draws `&App`; [`session`] keeps the work between runs.
 
 pub mod actions;
 pub mod app;
