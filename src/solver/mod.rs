@@ -95,45 +95,9 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         y_mid: geometry.y_mid,
         half_span: 0.5 * geometry.span,
     };
-    let thetas = fourier::collocation_angles(n);
-    let angles: Vec<(f64, f64)> = thetas
-        .iter()
-        .map(|t| {
-            let (sin, cos) = t.sin_cos();
-            (cos, sin)
-        })
-        .collect();
-    let mut ys: Vec<f64> = angles.iter().map(|&(cos, _)| map.y_at_cos(cos)).collect();
-    if wing.symmetric {
-        mirror_positions(&mut ys);
-    }
-    let point_sections: Vec<Section> = ys.iter().map(|&y| sections.at(y)).collect();
-    let mu: Vec<f64> = point_sections
-        .iter()
-        .map(|s| 4.0 * geometry.span / (s.airfoil.lift_slope * s.chord))
-        .collect();
-    let mut rhs: Vec<f64> = point_sections
-        .iter()
-        .map(|s| s.twist - s.airfoil.alpha_zero_lift_deg.to_radians())
-        .collect();
     let control_spans = controls::spans(&wing.controls);
-    if wing.symmetric {
-        // Each control's left half (every odd entry) is the mirror of its right half.
-        for pair in control_spans.chunks_exact(2) {
-            fourier::add_mirrored_control_shift(
-                map,
-                &thetas,
-                &pair[0],
-                pair[1].alpha_increase,
-                &mut rhs,
-            );
-        }
-    } else {
-        for span in &control_spans {
-            fourier::add_control_shift(map, &thetas, span, &mut rhs);
-        }
-    }
-    let responses = fourier::solve_collocation(&thetas, &mu, &rhs, wing.symmetric)
+    let at = CollocationPoints::of(wing, &sections, map, n, &control_spans);
+    let responses = fourier::solve_collocation(&at.thetas, &at.mu, &at.rhs, wing.symmetric)
         .ok_or(SolveError::Singular)?;
     let edges: Vec<f64> = control_spans
         .iter()
@@ -143,30 +107,9 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
     let warnings = validate::warnings(wing, &geometry);
     let scales = (geometry.span, geometry.mean_chord);
-    let at_points = fourier::Collocation {
-        angles: &angles,
-        mu: &mu,
-        rhs: &rhs,
-        mirrored: wing.symmetric,
-    };
-    let sums = fourier::collocation_sums(pair.0, pair.1, at_points);
-    let points = spanwise::linear_points(&ys, &point_sections, &sums, scales, &control_spans);
-    let station_ys: Vec<f64> = wing.stations.iter().map(|s| s.y).collect();
-    let station_angles: Vec<(f64, f64)> = station_ys
-        .iter()
-        .map(|&y| {
-            let (sin, cos) = map.theta(y).sin_cos();
-            (cos, sin)
-        })
-        .collect();
-    let station_sums = fourier::pair_sums(pair.0, pair.1, &station_angles);
-    let station_points = spanwise::linear_points(
-        &station_ys,
-        sections.rows(),
-        &station_sums,
-        scales,
-        &control_spans,
-    );
+    let sums = fourier::collocation_sums(pair.0, pair.1, at.system(wing.symmetric));
+    let points = spanwise::linear_points(&at.ys, &at.sections, &sums, scales, &control_spans);
+    let station_points = station_points(wing, &sections, map, pair, scales, &control_spans);
     let mut prepared = Prepared {
         geometry,
         per_alpha: responses.per_alpha,
@@ -179,6 +122,111 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     };
     prepared.first_stall = prepared.find_first_stall();
     Ok(prepared)
+}
+
+/// The collocation points of a wing and the inputs of its system there.
+struct CollocationPoints {
+    thetas: Vec<f64>,
+    /// `(cos theta, sin theta)`.
+    angles: Vec<(f64, f64)>,
+    ys: Vec<f64>,
+    sections: Vec<Section>,
+    /// mu_k = 4 b / (a0_k c_k).
+    mu: Vec<f64>,
+    /// The zero-alpha right-hand side: twist - alpha_L0 + control shift.
+    rhs: Vec<f64>,
+}
+
+impl CollocationPoints {
+    fn of(
+        wing: &Wing,
+        sections: &Sections,
+        map: SpanMap,
+        n: usize,
+        control_spans: &[controls::ControlSpan],
+    ) -> Self {
+        let thetas = fourier::collocation_angles(n);
+        let angles: Vec<(f64, f64)> = thetas
+            .iter()
+            .map(|t| {
+                let (sin, cos) = t.sin_cos();
+                (cos, sin)
+            })
+            .collect();
+        let mut ys: Vec<f64> = angles.iter().map(|&(cos, _)| map.y_at_cos(cos)).collect();
+        if wing.symmetric {
+            mirror_positions(&mut ys);
+        }
+        let sections: Vec<Section> = ys.iter().map(|&y| sections.at(y)).collect();
+        let span = 2.0 * map.half_span;
+        let mu = sections
+            .iter()
+            .map(|s| 4.0 * span / (s.airfoil.lift_slope * s.chord))
+            .collect();
+        let mut rhs: Vec<f64> = sections
+            .iter()
+            .map(|s| s.twist - s.airfoil.alpha_zero_lift_deg.to_radians())
+            .collect();
+        add_control_shifts(wing.symmetric, map, &thetas, control_spans, &mut rhs);
+        Self {
+            thetas,
+            angles,
+            ys,
+            sections,
+            mu,
+            rhs,
+        }
+    }
+
+    fn system(&self, mirrored: bool) -> fourier::Collocation<'_> {
+        fourier::Collocation {
+            angles: &self.angles,
+            mu: &self.mu,
+            rhs: &self.rhs,
+            mirrored,
+        }
+    }
+}
+
+/// Adds every control's zero-lift shift to the right-hand side; on a mirrored wing each
+/// control's left half (every odd entry of `spans`) is taken as the exact mirror of its right.
+fn add_control_shifts(
+    mirrored: bool,
+    map: SpanMap,
+    thetas: &[f64],
+    spans: &[controls::ControlSpan],
+    rhs: &mut [f64],
+) {
+    if mirrored {
+        for pair in spans.chunks_exact(2) {
+            fourier::add_mirrored_control_shift(map, thetas, &pair[0], pair[1].alpha_increase, rhs);
+        }
+    } else {
+        for span in spans {
+            fourier::add_control_shift(map, thetas, span, rhs);
+        }
+    }
+}
+
+/// Local values at the wing's own stations.
+fn station_points(
+    wing: &Wing,
+    sections: &Sections,
+    map: SpanMap,
+    (at_zero, per_alpha): (&[f64], &[f64]),
+    scales: (f64, f64),
+    control_spans: &[controls::ControlSpan],
+) -> Vec<spanwise::LinearPoint> {
+    let ys: Vec<f64> = wing.stations.iter().map(|s| s.y).collect();
+    let angles: Vec<(f64, f64)> = ys
+        .iter()
+        .map(|&y| {
+            let (sin, cos) = map.theta(y).sin_cos();
+            (cos, sin)
+        })
+        .collect();
+    let sums = fourier::pair_sums(at_zero, per_alpha, &angles);
+    spanwise::linear_points(&ys, sections.rows(), &sums, scales, control_spans)
 }
 
 /// Makes the collocation positions of a mirrored wing exactly antisymmetric (the left half
