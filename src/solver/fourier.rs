@@ -281,12 +281,32 @@ pub fn matrix(thetas: &[f64], mu: &[f64]) -> DMatrix<f64> {
 /// moves the effective control edge continuously with the true edge, which removes the
 /// term-count oscillation of part-span controls (see docs/theory.md).
 pub fn add_control_shift(map: SpanMap, thetas: &[f64], span: &ControlSpan, out: &mut [f64]) {
-    let h = std::f64::consts::PI / (thetas.len() as f64 + 1.0);
-    let (t_from, t_to) = (map.theta(span.y_from), map.theta(span.y_to));
+    let cells = CellOverlap::new(map, thetas.len(), span);
     for (slot, &theta) in out.iter_mut().zip(thetas) {
-        let (lo, hi) = (theta - 0.5 * h, theta + 0.5 * h);
-        let overlap = (hi.min(t_to) - lo.max(t_from)).max(0.0);
-        *slot += span.alpha_increase * overlap / h;
+        *slot += span.alpha_increase * cells.fraction(theta);
+    }
+}
+
+/// The fraction of each collocation cell [theta - h/2, theta + h/2], h = pi/(N + 1), that lies
+/// inside a control's span.
+struct CellOverlap {
+    h: f64,
+    from: f64,
+    to: f64,
+}
+
+impl CellOverlap {
+    fn new(map: SpanMap, terms: usize, span: &ControlSpan) -> Self {
+        Self {
+            h: std::f64::consts::PI / (terms as f64 + 1.0),
+            from: map.theta(span.y_from),
+            to: map.theta(span.y_to),
+        }
+    }
+
+    fn fraction(&self, theta: f64) -> f64 {
+        let (lo, hi) = (theta - 0.5 * self.h, theta + 0.5 * self.h);
+        (hi.min(self.to) - lo.max(self.from)).max(0.0) / self.h
     }
 }
 
@@ -302,11 +322,9 @@ pub fn add_mirrored_control_shift(
     out: &mut [f64],
 ) {
     let n = thetas.len();
-    let h = std::f64::consts::PI / (n as f64 + 1.0);
-    let (t_from, t_to) = (map.theta(right.y_from), map.theta(right.y_to));
+    let cells = CellOverlap::new(map, n, right);
     for k in n / 2..n {
-        let (lo, hi) = (thetas[k] - 0.5 * h, thetas[k] + 0.5 * h);
-        let overlap = (hi.min(t_to) - lo.max(t_from)).max(0.0) / h;
+        let overlap = cells.fraction(thetas[k]);
         if overlap == 0.0 {
             continue;
         }

@@ -61,7 +61,7 @@ const GAUSS5: [(f64, f64); 5] = [
 ];
 
 /// Sine-series coefficients as two responses: `(at zero alpha, per radian)`.
-pub type Responses<'a> = (&'a [f64], &'a [f64]);
+pub type ResponsePair<'a> = (&'a [f64], &'a [f64]);
 
 /// Integrates the load polynomials of a wing whose sine-series coefficients are
 /// A_n(alpha) = `at_zero[n] + alpha * per_alpha[n]`.
@@ -76,7 +76,7 @@ pub fn integrate(
     sections: &Sections,
     map: SpanMap,
     area: f64,
-    responses: Responses,
+    responses: ResponsePair,
     control_edges: &[f64],
 ) -> LoadIntegrals {
     let span = 2.0 * map.half_span;
@@ -112,7 +112,7 @@ impl Quadratic {
 
     /// The quadratic form sum_n sum_m w_nm A_n A_m with A = z + alpha p, given the bilinear
     /// form `form(u, v)` = sum w_nm u_n v_m.
-    fn of_form(form: impl Fn(&[f64], &[f64]) -> f64, (z, p): Responses) -> Self {
+    fn of_form(form: impl Fn(&[f64], &[f64]) -> f64, (z, p): ResponsePair) -> Self {
         Self {
             p0: form(z, z),
             p1: form(z, p) + form(p, z),
@@ -121,7 +121,7 @@ impl Quadratic {
     }
 
     /// The linear form sum_n w_n A_n with A = z + alpha p.
-    fn of_weights(weights: &[f64], (z, p): Responses) -> Self {
+    fn of_weights(weights: &[f64], (z, p): ResponsePair) -> Self {
         let dot = |a: &[f64]| a.iter().zip(weights).map(|(a, w)| a * w).sum::<f64>();
         Self {
             p0: dot(z),
@@ -182,7 +182,7 @@ struct HalfLoads {
 }
 
 impl HalfLoads {
-    fn of(map: SpanMap, responses: Responses) -> Self {
+    fn of(map: SpanMap, responses: ResponsePair) -> Self {
         let terms = responses.0.len();
         let h = map.half_span;
         let scale = 8.0 * h * h; // 4 b (b/2)
@@ -250,7 +250,7 @@ fn weighted_dot(u: &[f64], v: &[f64]) -> f64 {
 /// integral c cl alpha_i (y - y_mid) dy = -(pi b^3/4) sum (2n+1) A_n A_{n+1}
 /// (from integral_0^pi sin(m t) sin(n t) cos(t) dt = (pi/4)[m = n+1 or m = n-1]; derived in
 /// docs/theory.md sec. 5), both over S b.
-fn induced_yaw(map: SpanMap, area: f64, responses: Responses) -> Quadratic {
+fn induced_yaw(map: SpanMap, area: f64, responses: ResponsePair) -> Quadratic {
     let span = 2.0 * map.half_span;
     let form = |u: &[f64], v: &[f64]| {
         let drag = weighted_dot(u, v);
@@ -397,7 +397,7 @@ fn node_angles(lo: f64, half: f64) -> [(f64, f64); 5] {
 fn load_dependent_profile_drag(
     sections: &Sections,
     map: SpanMap,
-    (at_zero, per_alpha): Responses,
+    (at_zero, per_alpha): ResponsePair,
     control_edges: &[f64],
 ) -> (Quadratic, Quadratic) {
     let span = 2.0 * map.half_span;

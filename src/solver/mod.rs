@@ -213,7 +213,7 @@ fn station_points(
     wing: &Wing,
     sections: &Sections,
     map: SpanMap,
-    (at_zero, per_alpha): (&[f64], &[f64]),
+    (at_zero, per_alpha): integrals::ResponsePair,
     scales: (f64, f64),
     control_spans: &[controls::ControlSpan],
 ) -> Vec<spanwise::LinearPoint> {

@@ -126,6 +126,17 @@ pub struct Section {
     pub x_le: f64,
 }
 
+/// Where `y` falls among `items` at increasing positions `y_of(item)` (at least two): the
+/// index of the upper end of its segment and the fraction of the way along it, clamped to the
+/// ends past the first and last item.
+pub(crate) fn bracket<T>(items: &[T], y_of: impl Fn(&T) -> f64, y: f64) -> (usize, f64) {
+    let upper = items
+        .partition_point(|item| y_of(item) < y)
+        .clamp(1, items.len() - 1);
+    let (ya, yb) = (y_of(&items[upper - 1]), y_of(&items[upper]));
+    (upper, ((y - ya) / (yb - ya)).clamp(0.0, 1.0))
+}
+
 impl Section {
     /// Linear blend, fraction `t` of the way from `self` to `other` (the rule between stations).
     #[must_use]
@@ -185,12 +196,8 @@ impl Wing {
     #[must_use]
     pub fn section_at(&self, y: f64) -> Section {
         let y = if self.symmetric { y.abs() } else { y };
-        let stations = &self.stations;
-        let upper = stations
-            .partition_point(|s| s.y < y)
-            .clamp(1, stations.len() - 1);
-        let (a, b) = (&stations[upper - 1], &stations[upper]);
-        let t = ((y - a.y) / (b.y - a.y)).clamp(0.0, 1.0);
+        let (upper, t) = bracket(&self.stations, |s| s.y, y);
+        let (a, b) = (&self.stations[upper - 1], &self.stations[upper]);
         self.station_section(a).lerp(&self.station_section(b), t)
     }
 

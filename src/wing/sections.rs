@@ -31,12 +31,7 @@ impl Sections {
     #[must_use]
     pub fn at(&self, y: f64) -> Section {
         let y = if self.symmetric { y.abs() } else { y };
-        let upper = self
-            .ys
-            .partition_point(|&s| s < y)
-            .clamp(1, self.ys.len() - 1);
-        let (ya, yb) = (self.ys[upper - 1], self.ys[upper]);
-        let t = ((y - ya) / (yb - ya)).clamp(0.0, 1.0);
+        let (upper, t) = super::model::bracket(&self.ys, |&s| s, y);
         self.rows[upper - 1].lerp(&self.rows[upper], t)
     }
 
