@@ -6,28 +6,44 @@ use std::path::{Path, PathBuf};
 use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
 use crate::solver::{self, Options, Prepared};
-use crate::text::inert;
+use crate::text;
 use crate::wing::{file, validate, Condition, Geometry, Wing};
 
 /// Writes to stdout; a closed pipe (`| head`) ends the output quietly instead of failing.
-fn emit(text: &str) -> Result<(), String> {
+/// Every report passes through here made inert (JSON escaped instead), so no text from a file
+/// can reach the terminal as an escape sequence.
+fn emit(text: &str, format: Format) -> Result<(), String> {
+    let safe = match format {
+        Format::Json => text::json_escaped(text),
+        Format::Line | Format::Table | Format::Csv => text::inert_lines(text),
+    };
     let mut out = std::io::stdout().lock();
-    match out.write_all(text.as_bytes()).and_then(|()| out.flush()) {
+    match out.write_all(safe.as_bytes()).and_then(|()| out.flush()) {
         Err(e) if e.kind() != std::io::ErrorKind::BrokenPipe => Err(format!("stdout: {e}")),
         _ => Ok(()),
     }
 }
 
-/// Reads a wing and prints its warnings to stderr.
+/// Prints `label: message` on stderr, made inert.
+pub(super) fn say(label: &str, message: &str) {
+    eprintln!("{label}: {}", text::inert(message));
+}
+
+/// A path as printed in messages.
+fn shown(path: &Path) -> String {
+    text::inert(&path.display().to_string())
+}
+
+/// Reads a wing.
 fn load(path: &Path) -> Result<Wing, String> {
-    file::read(path).map_err(|e| inert(&e.to_string()))
+    file::read(path).map_err(|e| e.to_string())
 }
 
 fn prepare(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Prepared, String> {
     let options = Options {
         terms: args.terms.unwrap_or(solver::DEFAULT_TERMS),
     };
-    solver::prepare(wing, options).map_err(|e| format!("{}: {e}", path.display()))
+    solver::prepare(wing, options).map_err(|e| format!("{}: {e}", shown(path)))
 }
 
 fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
@@ -41,7 +57,7 @@ fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition
     match validate::condition_rules(&c).into_iter().next() {
         Some(p) => Err(format!(
             "{}: {p} (from the command line or [condition])",
-            path.display()
+            shown(path)
         )),
         None => Ok(c),
     }
@@ -49,7 +65,7 @@ fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition
 
 fn warn(path: &Path, warnings: &[String]) {
     for w in warnings {
-        eprintln!("warning: {}: {w}", path.display());
+        say("warning", &format!("{}: {w}", path.display()));
     }
 }
 
@@ -60,7 +76,7 @@ pub(super) fn solve(args: &SolveArgs) -> Result<(), String> {
     }
     for (i, path) in args.files.iter().enumerate() {
         if i > 0 && args.format == Format::Table {
-            emit("\n")?;
+            emit("\n", args.format)?;
         }
         solve_one(path, args)?;
     }
@@ -80,14 +96,15 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
     let prepared = prepare(path, &wing, &args.condition)?;
     let s = prepared
         .solve(&c)
-        .map_err(|e| format!("{}: {e}", path.display()))?;
+        .map_err(|e| format!("{}: {e}", shown(path)))?;
     warn(path, &s.warnings);
-    match args.format {
-        Format::Line => emit(&format!("{}\n", report::line(&wing, &s, c.target_cl))),
-        Format::Table => emit(&report::table(&wing, &s, c.target_cl)),
-        Format::Json => emit(&format!("{}\n", report::json(&wing, &s, c.target_cl))),
-        Format::Csv => emit(&report::csv(&s)),
-    }
+    let out = match args.format {
+        Format::Line => format!("{}\n", report::line(&wing, &s, c.target_cl)),
+        Format::Table => report::table(&wing, &s, c.target_cl),
+        Format::Json => format!("{}\n", report::json(&wing, &s, c.target_cl)),
+        Format::Csv => report::csv(&s),
+    };
+    emit(&out, args.format)
 }
 
 /// `gammaline sweep`.
@@ -125,13 +142,10 @@ pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
         Format::Csv => report::SweepStyle::Csv,
         Format::Line | Format::Table => report::SweepStyle::Table,
     };
-    emit(&report::sweep(
-        &wing,
-        prepared.geometry(),
-        &points,
-        q,
-        style,
-    ))
+    emit(
+        &report::sweep(&wing, prepared.geometry(), &points, q, style),
+        args.format,
+    )
 }
 
 /// `gammaline check`: validates every file; fails if any is bad.
@@ -141,7 +155,8 @@ pub(super) fn check(files: &[PathBuf]) -> Result<(), String> {
         match load(path) {
             Ok(wing) => {
                 let g = Geometry::of(&wing);
-                emit(&format!("{}\n", report::geometry_line(path, &wing, &g)))?;
+                let line = report::geometry_line(path, &wing, &g);
+                emit(&format!("{line}\n"), Format::Line)?;
                 warn(path, &validate::warnings(&wing, &g));
             }
             Err(e) => errors.push(e),
@@ -150,7 +165,7 @@ pub(super) fn check(files: &[PathBuf]) -> Result<(), String> {
     // All but the last are printed here, the last by the caller, so each file gets one line.
     let last = errors.pop();
     for e in errors {
-        eprintln!("error: {e}");
+        say("error", &e);
     }
     last.map_or(Ok(()), Err)
 }
