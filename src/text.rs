@@ -78,6 +78,20 @@ pub fn signed(v: f64, decimals: usize) -> String {
     }
 }
 
+/// A number quoted in a message: the shortest form that reads back to the same value, in
+/// exponent form when plain digits would be long (`1e300`, `2.5e-9`, not 300 digits).
+#[must_use]
+pub fn readable(v: f64) -> String {
+    let magnitude = v.abs();
+    if v == 0.0 {
+        "0".to_string()
+    } else if !v.is_finite() || (1e-4..1e9).contains(&magnitude) {
+        format!("{v}")
+    } else {
+        format!("{v:e}")
+    }
+}
+
 /// `-0.0` made `0.0`, for output at full precision; every other value unchanged.
 #[must_use]
 pub fn unsigned_zero(v: f64) -> f64 {
@@ -154,6 +168,17 @@ mod tests {
         let back: serde_json::Value = serde_json::from_str(&text).expect("still JSON");
         assert_eq!(back, value);
         assert_eq!(inert_lines("a\u{1b}\nb\u{9b}"), "a?\nb?");
+    }
+
+    #[test]
+    fn quoted_numbers_stay_short() {
+        assert_eq!(readable(1e300), "1e300");
+        assert_eq!(readable(-2.5e-9), "-2.5e-9");
+        assert_eq!(readable(-0.0), "0");
+        assert_eq!(readable(0.15), "0.15");
+        assert_eq!(readable(-4.0), "-4");
+        assert_eq!(readable(123_456_789.0), "123456789");
+        assert_eq!(readable(f64::INFINITY), "inf");
     }
 
     #[test]

@@ -7,6 +7,7 @@ use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
 use crate::solver::{self, Options, Prepared};
 use crate::text;
+use crate::wing::validate::MAX_ALPHA_DEG;
 use crate::wing::{file, validate, Condition, Geometry, Wing};
 
 /// Writes to stdout; a closed pipe (`| head`) ends the output quietly instead of failing.
@@ -109,22 +110,7 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
 
 /// `gammaline sweep`.
 pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
-    let finite = args.step.is_finite() && args.from.is_finite() && args.to.is_finite();
-    if !(finite && args.step > 0.0) {
-        return Err("sweep: --step must be > 0 and --from/--to finite".into());
-    }
-    if args.to < args.from {
-        return Err(format!(
-            "sweep: --to {} is below --from {}",
-            args.to, args.from
-        ));
-    }
-    let count = ((args.to - args.from) / args.step + 1e-9).floor() as usize + 1;
-    if count > 100_000 {
-        return Err(format!(
-            "sweep: {count} points is too many (at most 100000)"
-        ));
-    }
+    let count = sweep_points(args.from, args.to, args.step)?;
     let wing = load(&args.file)?;
     let c = condition(&args.file, &wing, &args.condition)?;
     let prepared = prepare(&args.file, &wing, &args.condition)?;
@@ -146,6 +132,45 @@ pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
         &report::sweep(&wing, prepared.geometry(), &points, q, style),
         args.format,
     )
+}
+
+/// The most points one sweep computes.
+pub(super) const MAX_SWEEP_POINTS: usize = 100_000;
+
+/// The number of points from `from` up to `to` by `step`, or why the range is refused.
+fn sweep_points(from: f64, to: f64, step: f64) -> Result<usize, String> {
+    let readable = text::readable;
+    if !(step > 0.0 && step.is_finite()) {
+        return Err(format!(
+            "sweep: --step must be > 0 (got {}): the sweep runs from --from up to --to; \
+             to sweep the other way, swap them",
+            readable(step)
+        ));
+    }
+    for (flag, v) in [("--from", from), ("--to", to)] {
+        if !(-MAX_ALPHA_DEG..=MAX_ALPHA_DEG).contains(&v) {
+            return Err(format!(
+                "sweep: {flag} must be within -{MAX_ALPHA_DEG} to {MAX_ALPHA_DEG} deg (got {})",
+                readable(v)
+            ));
+        }
+    }
+    if to < from {
+        return Err(format!(
+            "sweep: --to {} is below --from {}: the sweep runs upwards, swap them",
+            readable(to),
+            readable(from)
+        ));
+    }
+    let steps = ((to - from) / step + 1e-9).floor();
+    if steps >= MAX_SWEEP_POINTS as f64 {
+        return Err(format!(
+            "sweep: {} points is too many (at most {MAX_SWEEP_POINTS}); take a larger --step",
+            readable(steps + 1.0)
+        ));
+    }
+    // A whole number in 0..MAX_SWEEP_POINTS, so the cast is exact.
+    Ok(steps as usize + 1)
 }
 
 /// `gammaline check`: validates every file; fails if any is bad.

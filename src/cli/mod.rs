@@ -36,7 +36,8 @@ pub struct Cli {
 enum Command {
     /// Solve one wing at one condition and print the result.
     Solve(SolveArgs),
-    /// Solve one wing over a range of angles of attack (a lift and drag polar).
+    /// Solve one wing over a range of angles of attack (a lift and drag polar), at most
+    /// 100000 points.
     Sweep(SweepArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
@@ -105,8 +106,13 @@ struct SweepArgs {
         default_value_t = 12.0
     )]
     to: f64,
-    /// Step, degrees.
-    #[arg(long, value_name = "DEG", default_value_t = 1.0)]
+    /// Step, degrees, > 0 (the sweep runs from --from up to --to, at most 100000 points).
+    #[arg(
+        long,
+        value_name = "DEG",
+        allow_negative_numbers = true,
+        default_value_t = 1.0
+    )]
     step: f64,
     #[command(flatten)]
     condition: ConditionArgs,
