@@ -5,6 +5,10 @@ use std::fmt;
 
 use super::{Geometry, Wing};
 
+/// The largest angle of attack (either sign), degrees, in a file, a flag or a solution: past
+/// it the angle no longer describes a wing in forward flight.
+pub const MAX_ALPHA_DEG: f64 = 90.0;
+
 /// Where in a wing a problem sits.
 #[derive(Debug, Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Place {
@@ -283,7 +287,14 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
     if let Some(cl) = c.target_cl {
         finite(&mut out, &place, "cl", cl);
     }
-    finite(&mut out, &place, "roll_rate", c.roll_rate);
+    if finite(&mut out, &place, "roll_rate", c.roll_rate) && c.roll_rate.abs() > 1.0 {
+        // pb/2V is the tip's helix angle in radians: past 1 the tip meets the air at over 45 deg.
+        out.push(problem(
+            place.clone(),
+            "roll_rate",
+            format!("must be within -1 to 1 (pb/2V; got {})", c.roll_rate),
+        ));
+    }
     if finite(&mut out, &place, "speed", c.speed) && c.speed <= 0.0 {
         out.push(problem(
             place.clone(),
