@@ -10,7 +10,7 @@ use crate::text::inert;
 use crate::wing::{file, validate, Condition, Geometry, Wing};
 
 /// Writes to stdout; a closed pipe (`| head`) ends the output quietly instead of failing.
-fn emit(text: &str) -> Result<(), String> {
+pub(super) fn emit(text: &str) -> Result<(), String> {
     let mut out = std::io::stdout().lock();
     match out.write_all(text.as_bytes()).and_then(|()| out.flush()) {
         Err(e) if e.kind() != std::io::ErrorKind::BrokenPipe => Err(format!("stdout: {e}")),
@@ -19,7 +19,7 @@ fn emit(text: &str) -> Result<(), String> {
 }
 
 /// Reads a wing and prints its warnings to stderr.
-fn load(path: &Path) -> Result<Wing, String> {
+pub(super) fn load(path: &Path) -> Result<Wing, String> {
     file::read(path).map_err(|e| inert(&e.to_string()))
 }
 
@@ -30,7 +30,11 @@ fn prepare(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Prepared, S
     solver::prepare(wing, options).map_err(|e| format!("{}: {e}", path.display()))
 }
 
-fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
+pub(super) fn condition(
+    path: &Path,
+    wing: &Wing,
+    args: &ConditionArgs,
+) -> Result<Condition, String> {
     let mut c = wing.condition;
     if let Some(v) = args.speed {
         c.speed = v;
@@ -47,7 +51,7 @@ fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition
     }
 }
 
-fn warn(path: &Path, warnings: &[String]) {
+pub(super) fn warn(path: &Path, warnings: &[String]) {
     for w in warnings {
         eprintln!("warning: {}: {w}", path.display());
     }
