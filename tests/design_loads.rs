@@ -5,11 +5,11 @@ mod common;
 use common::{station, tapered, thin, wing};
 use gammaline::atmosphere::G0;
 use gammaline::design::loads::{self, LoadCase, MassDistribution};
-use gammaline::solver::{self, Options, Solution, SolveError};
+use gammaline::solver::{self, Method, Solution, SolveError};
 use gammaline::wing::{Condition, Wing};
 
 fn solve(w: &Wing, c: &Condition) -> Result<Solution, SolveError> {
-    solver::solve(w, c, Options::default())
+    solver::solve(w, c, Method::default())
 }
 
 fn case(mass: f64, n: f64, wing_mass: f64, distribution: MassDistribution) -> LoadCase {

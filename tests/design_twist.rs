@@ -5,11 +5,11 @@ mod common;
 use common::{station, tapered, thin, wing};
 use gammaline::design::twist::{self, Loading};
 use gammaline::design::DesignError;
-use gammaline::solver::{self, Options, Solution, SolveError};
+use gammaline::solver::{self, Method, Solution, SolveError};
 use gammaline::wing::{Condition, Wing};
 
 fn solve(w: &Wing, c: &Condition) -> Result<Solution, SolveError> {
-    solver::solve(w, c, Options::default())
+    solver::solve(w, c, Method::default())
 }
 
 fn solved_at(w: &Wing, cl: f64) -> Solution {

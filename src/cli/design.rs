@@ -2,11 +2,11 @@
 
 use std::path::{Path, PathBuf};
 
-use super::commands::{emit, load, warn};
+use super::commands::{emit, load, method, shown, warn};
 use super::{ConditionArgs, Format};
 use crate::design::{self, twist, DesignError, SolveFn};
 use crate::report_design as render;
-use crate::solver::{self, Options, Solution, SolveError};
+use crate::solver::{self, Solution, SolveError};
 use crate::text::inert;
 use crate::wing::{file, Condition, Wing};
 
@@ -35,15 +35,13 @@ pub(super) struct DesignArgs {
 pub(super) fn solver_of(
     args: &ConditionArgs,
 ) -> impl Fn(&Wing, &Condition) -> Result<Solution, SolveError> + Sync {
-    let options = Options {
-        terms: args.terms.unwrap_or(solver::DEFAULT_TERMS),
-    };
-    move |w: &Wing, c: &Condition| solver::solve(w, c, options)
+    let method = method(args);
+    move |w: &Wing, c: &Condition| solver::solve(w, c, method)
 }
 
 /// A design error in one line, naming the file.
 pub(super) fn failed(path: &Path, e: &DesignError) -> String {
-    inert(&format!("{}: {e}", path.display()))
+    format!("{}: {e}", shown(path))
 }
 
 /// The wing with the command line's speed and altitude in its condition.
@@ -110,9 +108,10 @@ pub(super) fn run(args: &DesignArgs) -> Result<(), String> {
         untwisted_delta: delta0,
         output: &args.output,
     };
-    emit(&match args.format {
+    let text = match args.format {
         Format::Line | Format::Table => render::twist_table(&report),
         Format::Json => format!("{}\n", render::twist_json(&report)),
         Format::Csv => render::twist_csv(&report),
-    })
+    };
+    emit(&text, args.format)
 }
