@@ -3,6 +3,7 @@
 
 mod commands;
 mod design;
+mod refusal;
 
 use std::path::PathBuf;
 use std::process::ExitCode;

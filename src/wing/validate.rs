@@ -17,7 +17,7 @@ pub const MAX_SPEED_M_S: f64 = 1000.0;
 /// The largest section lift slope, per radian: twice the thin-airfoil 2 pi, so a slope given
 /// per degree times 57.3 twice over, or any other unit slip, is caught.
 pub const MAX_LIFT_SLOPE: f64 = 12.5;
-/// The largest |cl_max| of a section and |CL| of a target: beyond any high-lift section.
+/// The largest `cl_max` of a section: beyond any high-lift section.
 pub const MAX_CL: f64 = 10.0;
 /// The largest `cd0` (a flat plate across the flow has about 2) and |cd1|, |cd2|.
 pub const MAX_DRAG_TERM: f64 = 10.0;
@@ -424,7 +424,7 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
     let place = Place::Condition;
     within(&mut out, &place, "alpha", c.alpha_deg, ANGLE);
     if let Some(cl) = c.target_cl {
-        within(&mut out, &place, "cl", cl, (MAX_CL, ""));
+        finite(&mut out, &place, "cl", cl);
     }
     if finite(&mut out, &place, "roll_rate", c.roll_rate) && c.roll_rate.abs() > 1.0 {
         // pb/2V is the tip's helix angle in radians: past 1 the tip meets the air at over 45 deg.
