@@ -9,6 +9,7 @@
 
 pub mod atmosphere;
 pub mod cli;
+pub mod fsio;
 pub mod report;
 pub mod session;
 pub mod solver;
