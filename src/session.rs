@@ -5,10 +5,10 @@
 //! Nothing here touches the terminal; the workbench decides when to save (debounced).
 
 use std::fs::{self, File, OpenOptions};
-use std::io::{Read as _, Write as _};
-use std::sync::Arc;
 use std::io;
+use std::io::{Read as _, Write as _};
 use std::path::{Path, PathBuf};
+use std::sync::Arc;
 
 use serde::{Deserialize, Serialize};
 
@@ -214,8 +214,6 @@ pub fn claim(dir: &Path) -> Claim {
             let _ = file.read_to_string(&mut text);
             Claim::Taken(text.trim().parse().ok())
         }
-        Err(fs::TryLockError::Error(e)) => {
-            Claim::Unavailable(format!("{}: {e}", path.display()))
-        }
+        Err(fs::TryLockError::Error(e)) => Claim::Unavailable(format!("{}: {e}", path.display())),
     }
 }

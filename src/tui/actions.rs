@@ -258,7 +258,11 @@ fn write(app: &mut App, path: &Path, overwrite_read_only: bool) -> Result<(), Wr
     let msg = if target == path {
         format!("saved {}", path.display())
     } else {
-        format!("saved {} (through the link, into {})", path.display(), target.display())
+        format!(
+            "saved {} (through the link, into {})",
+            path.display(),
+            target.display()
+        )
     };
     app.say(&msg, false);
     Ok(())

@@ -214,7 +214,7 @@ impl App {
             Some(why) => (
                 format!("{n} unsaved wing(s) exist only in memory, not in the session: quit? y/n"),
                 Some(inert(&format!(
-                    "{why}; n, then s saves to its file or S saves as a new one"
+                    "n, then s saves or S saves as a new file; {why}"
                 ))),
             ),
         }

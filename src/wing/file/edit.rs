@@ -109,7 +109,10 @@ fn align<T: PartialEq>(old: &[T], new: &[T], like: fn(&T, &T) -> bool) -> Vec<Op
     let mut out = vec![None; new.len()];
     let mut gap_start = (0, 0);
     let strict = matches(old, new, &|a: &T, b: &T| a == b);
-    for &(i, j) in strict.iter().chain(std::iter::once(&(old.len(), new.len()))) {
+    for &(i, j) in strict
+        .iter()
+        .chain(std::iter::once(&(old.len(), new.len())))
+    {
         let (oi, nj) = gap_start;
         let (old_gap, new_gap) = (&old[oi..i], &new[nj..j]);
         let loose = matches(old_gap, new_gap, &like);
@@ -173,11 +176,7 @@ fn matches<T>(old: &[T], new: &[T], eq: &dyn Fn(&T, &T) -> bool) -> Vec<(usize, 
 }
 
 /// A longest common subsequence by the textbook table (quadratic; kept for short stretches).
-fn common_subsequence<T>(
-    old: &[T],
-    new: &[T],
-    eq: &dyn Fn(&T, &T) -> bool,
-) -> Vec<(usize, usize)> {
+fn common_subsequence<T>(old: &[T], new: &[T], eq: &dyn Fn(&T, &T) -> bool) -> Vec<(usize, usize)> {
     let (n, m) = (old.len(), new.len());
     let mut common = vec![vec![0_usize; m + 1]; n + 1];
     for i in (0..n).rev() {
@@ -259,7 +258,13 @@ fn same_control(a: &Control, b: &Control) -> bool {
 pub fn tidy_numbers(wing: &Wing) -> Wing {
     let mut w = wing.clone();
     for s in &mut w.stations {
-        for v in [&mut s.y, &mut s.chord, &mut s.twist_deg, &mut s.x_le, &mut s.z] {
+        for v in [
+            &mut s.y,
+            &mut s.chord,
+            &mut s.twist_deg,
+            &mut s.x_le,
+            &mut s.z,
+        ] {
             *v = tidy(*v);
         }
     }
