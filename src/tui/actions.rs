@@ -19,7 +19,7 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
         return Err("type a path to a wing file".into());
     }
     let path = &expand_home(path);
-    let doc = Doc::read(path, app.settings.options)?;
+    let doc = Doc::read(path, app.settings.method)?;
     app.add_doc(doc);
     app.clamp_cursor();
     let msg = format!("opened {}", path.display());
@@ -276,9 +276,9 @@ pub fn revert(app: &mut App) {
     };
     match super::doc::read_stamped(&path) {
         Ok((wing, stamp)) => {
-            let options = app.settings.options;
+            let method = app.settings.method;
             let doc = app.current_doc_mut();
-            doc.change(wing.clone(), options);
+            doc.change(wing.clone(), method);
             doc.saved = Some(wing);
             doc.disk = Some(stamp);
             app.clamp_cursor();

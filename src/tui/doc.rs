@@ -4,7 +4,7 @@ use std::path::{Path, PathBuf};
 
 use super::cells::Sheet;
 use crate::fsio::Stamp;
-use crate::solver::{self, Options, Prepared, Solution};
+use crate::solver::{self, Method, PreparedWing, Solution};
 use crate::wing::file;
 use crate::wing::Wing;
 
@@ -52,30 +52,9 @@ pub struct Doc {
     pub cursor: Cursor,
     /// The solution of `wing`, or why there is none (already cleaned for display).
     pub solved: Result<Solution, String>,
-    /// The factored system behind `solved`, kept so a change of the condition alone (alpha,
-    /// target CL, speed, altitude) re-solves without building it again.
-    prepared: Option<PreparedFor>,
-}
-
-/// A prepared system and what it was prepared from.
-#[derive(Debug, Clone)]
-struct PreparedFor {
-    wing: Wing,
-    options: Options,
-    prepared: Prepared,
-}
-
-impl PreparedFor {
-    /// Whether `wing` differs from the prepared one at most in its condition and name, which
-    /// the system does not depend on.
-    fn fits(&self, wing: &Wing, options: Options) -> bool {
-        let w = &self.wing;
-        self.options == options
-            && w.symmetric == wing.symmetric
-            && w.stations == wing.stations
-            && w.airfoils == wing.airfoils
-            && w.controls == wing.controls
-    }
+    /// The prepared wing behind `solved`, kept so a change of the condition alone (alpha,
+    /// target CL, speed, altitude) re-solves without preparing again when the method allows.
+    prepared: Option<PreparedWing>,
 }
 
 /// Reads a wing file and stamps the bytes read; a missing file or a folder is said plainly, a
@@ -93,16 +72,14 @@ pub fn read_stamped(path: &Path) -> Result<(Wing, Stamp), String> {
     if !path.exists() {
         return Err(format!("no such file: {}", path.display()));
     }
-    let bytes = std::fs::read(path).map_err(|e| format!("{}: cannot read: {e}", path.display()))?;
-    let text = String::from_utf8(bytes)
-        .map_err(|e| format!("{}: cannot read: not UTF-8 text ({e})", path.display()))?;
+    let text = file::read_text(path).map_err(|e| e.to_string())?;
     let wing = file::parse(&text, path).map_err(|e| e.to_string())?;
     Ok((wing, Stamp::of(path, text.as_bytes())))
 }
 
 /// Solves a wing at its own condition; the error is one line for the status area.
-pub fn solve(wing: &Wing, options: Options) -> Result<Solution, String> {
-    solver::prepare(wing, options)
+pub fn solve(wing: &Wing, method: Method) -> Result<Solution, String> {
+    solver::prepare(wing, method)
         .and_then(|p| p.solve(&wing.condition))
         .map_err(|e| crate::text::inert(&e.to_string()))
 }
@@ -111,7 +88,7 @@ impl Doc {
     /// A wing just read from `path` (or never saved, with `None`); the file's stamp is taken
     /// now (use [`Doc::read`] to stamp exactly the bytes that were parsed).
     #[must_use]
-    pub fn new(wing: Wing, path: Option<PathBuf>, options: Options) -> Self {
+    pub fn new(wing: Wing, path: Option<PathBuf>, method: Method) -> Self {
         let saved = path.as_ref().map(|_| wing.clone());
         let disk = path.as_deref().and_then(Stamp::now);
         let mut doc = Self {
@@ -125,7 +102,7 @@ impl Doc {
             solved: Err(String::new()),
             prepared: None,
         };
-        doc.resolve(options);
+        doc.resolve(method);
         doc
     }
 
@@ -133,9 +110,9 @@ impl Doc {
     ///
     /// # Errors
     /// One line naming the path and what is wrong.
-    pub fn read(path: &Path, options: Options) -> Result<Self, String> {
+    pub fn read(path: &Path, method: Method) -> Result<Self, String> {
         let (wing, stamp) = read_stamped(path)?;
-        let mut doc = Self::new(wing, Some(path.to_path_buf()), options);
+        let mut doc = Self::new(wing, Some(path.to_path_buf()), method);
         doc.disk = Some(stamp);
         Ok(doc)
     }
@@ -153,7 +130,7 @@ impl Doc {
     }
 
     /// Replaces the wing with an edited one, keeping the old one for undo, and re-solves.
-    pub fn change(&mut self, wing: Wing, options: Options) {
+    pub fn change(&mut self, wing: Wing, method: Method) {
         if wing == self.wing {
             return;
         }
@@ -163,46 +140,40 @@ impl Doc {
             self.undo.remove(0);
         }
         self.redo.clear();
-        self.resolve(options);
+        self.resolve(method);
     }
 
     /// Steps back one change; false when there is none.
-    pub fn undo(&mut self, options: Options) -> bool {
+    pub fn undo(&mut self, method: Method) -> bool {
         let Some(previous) = self.undo.pop() else {
             return false;
         };
         self.redo.push(std::mem::replace(&mut self.wing, previous));
-        self.resolve(options);
+        self.resolve(method);
         true
     }
 
     /// Steps forward one undone change; false when there is none.
-    pub fn redo(&mut self, options: Options) -> bool {
+    pub fn redo(&mut self, method: Method) -> bool {
         let Some(next) = self.redo.pop() else {
             return false;
         };
         self.undo.push(std::mem::replace(&mut self.wing, next));
-        self.resolve(options);
+        self.resolve(method);
         true
     }
 
     /// Re-solves the current wing, reusing the prepared system when only the condition (or
     /// the name) changed.
-    pub fn resolve(&mut self, options: Options) {
+    pub fn resolve(&mut self, method: Method) {
         if !self
             .prepared
             .as_ref()
-            .is_some_and(|p| p.fits(&self.wing, options))
+            .is_some_and(|p| p.fits(&self.wing, method))
         {
             self.prepared = None;
-            match solver::prepare(&self.wing, options) {
-                Ok(prepared) => {
-                    self.prepared = Some(PreparedFor {
-                        wing: self.wing.clone(),
-                        options,
-                        prepared,
-                    });
-                }
+            match solver::prepare(&self.wing, method) {
+                Ok(prepared) => self.prepared = Some(prepared),
                 Err(e) => {
                     self.solved = Err(crate::text::inert(&e.to_string()));
                     return;
@@ -211,7 +182,6 @@ impl Doc {
         }
         if let Some(p) = &self.prepared {
             self.solved = p
-                .prepared
                 .solve(&self.wing.condition)
                 .map_err(|e| crate::text::inert(&e.to_string()));
         }
