@@ -84,25 +84,27 @@ pub fn non_finite(s: &Solution) -> Option<&'static str> {
         ("CL_first_stall", stall[1]),
         ("alpha_first_stall_deg", stall[2]),
     ];
-    let point_finite = |p: &SpanPoint| {
-        [
-            p.y,
-            p.chord,
-            p.cl,
-            p.span_load,
-            p.alpha_i_deg,
-            p.gamma,
-            p.cl_ratio,
-        ]
-        .iter()
-        .all(|v| v.is_finite())
-    };
+    let point_finite = |p: &SpanPoint| point_values(p).iter().all(|v| v.is_finite());
     scalars
         .iter()
         .find(|(_, v)| !v.is_finite())
         .map(|(key, _)| *key)
         .or_else(|| (!s.spanwise.iter().all(point_finite)).then_some("spanwise"))
         .or_else(|| (!s.stations.iter().all(point_finite)).then_some("stations"))
+}
+
+/// A spanwise point's numbers in the CSV's column order.
+const fn point_values(p: &SpanPoint) -> [f64; 8] {
+    [
+        p.y,
+        p.chord,
+        p.cl,
+        p.span_load,
+        p.alpha_i_deg,
+        p.gamma,
+        p.cl_max,
+        p.cl_ratio,
+    ]
 }
 
 fn lift_to_drag(s: &Solution) -> Option<f64> {
@@ -371,17 +373,7 @@ pub fn csv(s: &Solution) -> String {
     let mut out =
         String::from("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max\n");
     for p in &s.spanwise {
-        let row = [
-            p.y,
-            p.chord,
-            p.cl,
-            p.span_load,
-            p.alpha_i_deg,
-            p.gamma,
-            p.cl_max,
-            p.cl_ratio,
-        ]
-        .map(Some);
+        let row = point_values(p).map(Some);
         let _ = writeln!(out, "{}", csv_row(&row));
     }
     out
