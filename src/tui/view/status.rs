@@ -6,6 +6,7 @@ use ratatui::widgets::Widget;
 
 use super::put;
 use super::wrap::{fit_paths, wrap};
+use crate::text::inert;
 use crate::tui::app::{App, Mode};
 use crate::tui::editor::Purpose;
 use crate::tui::keymap;
@@ -32,10 +33,14 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             return;
         }
         Mode::Confirm => {
-            let n = app.docs.iter().filter(|d| d.unsaved()).count();
-            let text =
-                format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n");
-            put(buf, area.x, area.y, area.width, &text, t.warning);
+            put(
+                buf,
+                area.x,
+                area.y,
+                area.width,
+                &quit_question(app),
+                t.warning,
+            );
             return;
         }
         _ => {}
@@ -47,6 +52,13 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             put(buf, area.x, y, area.width, line, style);
         }
     }
+}
+
+/// The quit question, asked when unsaved work would be lost.
+#[must_use]
+pub fn quit_question(app: &App) -> String {
+    let n = app.docs.iter().filter(|d| d.unsaved()).count();
+    format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n")
 }
 
 /// Most rows a long message takes (the footer's row, then one of the panes').
@@ -94,6 +106,10 @@ pub fn footer(app: &App, area: Rect, buf: &mut Buffer) {
             // A refused path: the prompt holds the status line, so the reason goes here.
             let text = fit_paths(reason, usize::from(area.width), t.glyphs.ellipsis);
             put(buf, area.x, area.y, area.width, &text, t.invalid);
+            return;
+        }
+        if let Some(note) = &editor.note {
+            put(buf, area.x, area.y, area.width, &inert(note), t.dim);
             return;
         }
     }
