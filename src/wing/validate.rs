@@ -5,6 +5,10 @@ use std::fmt;
 
 use super::{Geometry, Wing};
 
+/// The largest angle of attack (either sign), degrees, in a file, a flag or a solution: past
+/// it the angle no longer describes a wing in forward flight.
+pub const MAX_ALPHA_DEG: f64 = 90.0;
+
 /// Where in a wing a problem sits.
 #[derive(Debug, Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Place {
