@@ -101,6 +101,17 @@ impl Tmux {
     }
 }
 
+/// True (and says so) when tmux is not installed, so the end-to-end tests are skipped.
+fn tmux_missing() -> bool {
+    let missing = !Tmux::available();
+    if missing {
+        eprintln!(
+            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
+        );
+    }
+    missing
+}
+
 impl Drop for Tmux {
     fn drop(&mut self) {
         let _ = self.run(&["kill-server"]);
@@ -159,10 +170,7 @@ fn strip_cl(screen: &str) -> Option<String> {
 
 #[test]
 fn edit_save_copy_quit_and_restore_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -230,10 +238,7 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
 
 #[test]
 fn monochrome_ascii_and_small_terminals_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -257,10 +262,7 @@ fn monochrome_ascii_and_small_terminals_in_tmux() {
 
 #[test]
 fn keys_wait_while_too_small_and_quit_still_asks_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -296,10 +298,7 @@ fn keys_wait_while_too_small_and_quit_still_asks_in_tmux() {
 
 #[test]
 fn tab_completes_the_open_prompt_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");

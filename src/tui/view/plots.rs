@@ -255,13 +255,15 @@ fn curve(
 }
 
 /// The y axis: its ends (unit in the label column) and the first station to stall. The
-/// marker always sits at its own column, between the ends' numbers: an end number it would
-/// cover is left out rather than moved past it, so the marker never reads as lying outside
-/// the span.
+/// marker always sits at its own column. When it would cover an end's number, both ends are
+/// written together as a range (`-5.00 to 5.00`) on the side away from the marker, so no
+/// end is hidden and no number is moved past the marker (where it would read as lying
+/// inside the span, or the marker outside it).
 fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf: &mut Buffer) {
     let width = inner.width - LABEL;
     let x0 = inner.x + LABEL;
-    put(buf, inner.x, y, LABEL, "y m", app.theme.dim);
+    let dim = app.theme.dim;
+    put(buf, inner.x, y, LABEL, "y m", dim);
     let stall = s
         .first_stall
         .and_then(|stall| stall_column(stall.y, (y0, y1), width));
@@ -269,13 +271,23 @@ fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf:
     let len = |t: &str| u16::try_from(t.chars().count()).unwrap_or(u16::MAX);
     let right_at = width.saturating_sub(len(&right));
     // One blank column between a number and the marker keeps both readable.
-    let left_fits = stall.is_none_or(|col| col > len(&left));
-    let right_fits = stall.is_none_or(|col| col + 1 < right_at);
-    if left_fits {
-        put(buf, x0, y, width, &left, app.theme.dim);
-    }
-    if right_fits && right_at > len(&left) {
-        put(buf, x0 + right_at, y, len(&right), &right, app.theme.dim);
+    let left_clear = stall.is_none_or(|col| col > len(&left));
+    let right_clear = stall.is_none_or(|col| col + 1 < right_at);
+    if left_clear && right_clear {
+        put(buf, x0, y, width, &left, dim);
+        if right_at > len(&left) {
+            put(buf, x0 + right_at, y, len(&right), &right, dim);
+        }
+    } else if let Some(col) = stall {
+        let range = format!("{left} to {right}");
+        let room_left = col.saturating_sub(1);
+        let room_right = width.saturating_sub(col + 2);
+        if !right_clear && len(&range) <= room_left {
+            put(buf, x0, y, len(&range), &range, dim);
+        } else if !left_clear && len(&range) <= room_right {
+            let at = width - len(&range);
+            put(buf, x0 + at, y, len(&range), &range, dim);
+        }
     }
     if let Some(col) = stall {
         put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
