@@ -126,8 +126,7 @@ fn json_agrees_with_the_library() {
     let mut c = w.condition;
     c.alpha_deg = 3.5;
     c.target_cl = None;
-    let s =
-        gammaline::solver::solve(&w, &c, gammaline::solver::Options::default()).expect("solves");
+    let s = gammaline::solver::solve(&w, &c, gammaline::solver::Method::default()).expect("solves");
     assert_eq!(v["CL"].as_f64(), Some(s.coefficients.cl));
     assert_eq!(v["CDi"].as_f64(), Some(s.coefficients.cdi));
     assert_eq!(v["alpha_deg"].as_f64(), Some(3.5));

@@ -5,7 +5,7 @@ use std::path::{Path, PathBuf};
 
 use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
-use crate::solver::{self, Options, Prepared};
+use crate::solver::{self, FreeStream, Method, PreparedWing};
 use crate::text;
 use crate::wing::validate::MAX_ALPHA_DEG;
 use crate::wing::{file, validate, Condition, Geometry, Wing};
@@ -40,11 +40,20 @@ fn load(path: &Path) -> Result<Wing, String> {
     file::read(path).map_err(|e| e.to_string())
 }
 
-fn prepare(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Prepared, String> {
-    let options = Options {
-        terms: args.terms.unwrap_or(solver::DEFAULT_TERMS),
-    };
-    solver::prepare(wing, options).map_err(|e| format!("{}: {e}", shown(path)))
+fn method(args: &ConditionArgs) -> Method {
+    Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS))
+}
+
+/// Prepares `wing` at `condition` (which sets the Mach correction and the roll rate).
+fn prepare(
+    path: &Path,
+    wing: &Wing,
+    condition: &Condition,
+    args: &ConditionArgs,
+) -> Result<PreparedWing, String> {
+    let mut wing = wing.clone();
+    wing.condition = *condition;
+    solver::prepare(&wing, method(args)).map_err(|e| format!("{}: {e}", shown(path)))
 }
 
 fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
@@ -94,7 +103,7 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
     if let Some(cl) = args.cl {
         c.target_cl = Some(cl);
     }
-    let prepared = prepare(path, &wing, &args.condition)?;
+    let prepared = prepare(path, &wing, &c, &args.condition)?;
     let s = prepared
         .solve(&c)
         .map_err(|e| format!("{}: {e}", shown(path)))?;
@@ -113,25 +122,27 @@ pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
     let count = sweep_points(args.from, args.to, args.step)?;
     let wing = load(&args.file)?;
     let c = condition(&args.file, &wing, &args.condition)?;
-    let prepared = prepare(&args.file, &wing, &args.condition)?;
-    warn(&args.file, &validate::warnings(&wing, prepared.geometry()));
+    let prepared = prepare(&args.file, &wing, &c, &args.condition)?;
+    warn(&args.file, prepared.warnings());
     let alphas: Vec<f64> = (0..count)
         .map(|i| args.from + i as f64 * args.step)
         .collect();
-    let points = prepared.sweep(&alphas);
-    let q = {
-        let air = crate::atmosphere::at(c.altitude);
-        0.5 * air.density * c.speed * c.speed
-    };
+    let points = prepared
+        .sweep(&alphas)
+        .map_err(|e| format!("{}: {e}", shown(&args.file)))?;
+    let q = FreeStream::of(&c).q;
     let style = match args.format {
         Format::Json => report::SweepStyle::Json,
         Format::Csv => report::SweepStyle::Csv,
         Format::Line | Format::Table => report::SweepStyle::Table,
     };
-    emit(
-        &report::sweep(&wing, prepared.geometry(), &points, q, style),
-        args.format,
-    )
+    let table = report::SweepTable {
+        geometry: prepared.geometry(),
+        method: prepared.method().name(),
+        q,
+        points: &points,
+    };
+    emit(&report::sweep(&wing, &table, style), args.format)
 }
 
 /// The most points one sweep computes.

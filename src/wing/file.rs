@@ -215,6 +215,7 @@ struct RawCondition {
     cl: Option<Spanned<f64>>,
     speed: Option<Spanned<f64>>,
     altitude: Option<Spanned<f64>>,
+    roll_rate: Option<Spanned<f64>>,
 }
 
 /// Takes a value and records where it stood.
@@ -346,6 +347,7 @@ fn condition(spans: &mut Spans, raw: Spanned<RawCondition>) -> Condition {
         target_cl: c.cl.map(|v| take(spans, &place, "cl", v)),
         speed: take_or(spans, &place, "speed", c.speed, d.speed),
         altitude: take_or(spans, &place, "altitude", c.altitude, d.altitude),
+        roll_rate: take_or(spans, &place, "roll_rate", c.roll_rate, d.roll_rate),
     }
 }
 
@@ -401,6 +403,9 @@ pub fn to_toml(wing: &Wing) -> String {
     }
     let _ = writeln!(out, "speed = {}", num(c.speed));
     let _ = writeln!(out, "altitude = {}", num(c.altitude));
+    if c.roll_rate != 0.0 {
+        let _ = writeln!(out, "roll_rate = {}", num(c.roll_rate));
+    }
     out
 }
 
