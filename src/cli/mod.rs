@@ -2,6 +2,7 @@
 //! A thin shell over the core: parse flags, read files, call the solver, print a report.
 
 mod commands;
+mod design;
 
 use std::path::PathBuf;
 use std::process::ExitCode;
@@ -39,6 +40,8 @@ enum Command {
     /// Solve one wing over a range of angles of attack (a lift and drag polar), at most
     /// 100000 points.
     Sweep(SweepArgs),
+    /// Design the twist for a spanwise loading at a lift coefficient; writes a new wing file.
+    Design(design::DesignArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
         /// Wing files (TOML).
@@ -145,6 +148,7 @@ pub fn run() -> ExitCode {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
+        Some(Command::Design(args)) => design::run(&args),
         Some(Command::Open { files }) => {
             return workbench(files, cli.session, cli.ascii, cli.notebook)
         }
