@@ -80,7 +80,11 @@ fn too_small(app: &App, area: Rect, buf: &mut Buffer) {
     ];
     if matches!(app.mode, Mode::Confirm) {
         // First, so it is seen even on a very small screen.
-        lines.insert(0, Line::styled(status::quit_question(app), t.warning));
+        let (question, advice) = app.quit_question();
+        if let Some(advice) = advice {
+            lines.insert(0, Line::styled(advice, t.invalid));
+        }
+        lines.insert(0, Line::styled(question, t.warning));
     }
     Paragraph::new(lines)
         .wrap(Wrap { trim: true })

@@ -33,14 +33,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             return;
         }
         Mode::Confirm => {
-            put(
-                buf,
-                area.x,
-                area.y,
-                area.width,
-                &quit_question(app),
-                t.warning,
-            );
+            let (question, _) = app.quit_question();
+            put(buf, area.x, area.y, area.width, &question, t.warning);
             return;
         }
         _ => {}
@@ -52,13 +46,6 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             put(buf, area.x, y, area.width, line, style);
         }
     }
-}
-
-/// The quit question, asked when unsaved work would be lost.
-#[must_use]
-pub fn quit_question(app: &App) -> String {
-    let n = app.docs.iter().filter(|d| d.unsaved()).count();
-    format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n")
 }
 
 /// Most rows a long message takes (the footer's row, then one of the panes').
@@ -112,6 +99,12 @@ pub fn footer(app: &App, area: Rect, buf: &mut Buffer) {
             put(buf, area.x, area.y, area.width, &inert(note), t.dim);
             return;
         }
+    }
+    if let (Mode::Confirm, (_, Some(advice))) = (&app.mode, app.quit_question()) {
+        // Unsaved work would be lost for good: what to do instead takes the footer.
+        let text = fit_paths(&advice, usize::from(area.width), t.glyphs.ellipsis);
+        put(buf, area.x, area.y, area.width, &text, t.invalid);
+        return;
     }
     let mut x = area.x;
     for (key, hint) in keymap::hints(app.mode.kind()) {
