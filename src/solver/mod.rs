@@ -105,7 +105,8 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         .collect();
     let pair = (responses.at_zero.as_slice(), responses.per_alpha.as_slice());
     let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
-    let warnings = validate::warnings(wing, &geometry);
+    let mut warnings = validate::warnings(wing, &geometry);
+    warnings.extend(linear_table_notes(wing));
     let scales = (geometry.span, geometry.mean_chord);
     let sums = fourier::collocation_sums(pair.0, pair.1, at.system(wing.symmetric));
     let points = spanwise::linear_points(&at.ys, &at.sections, &sums, scales, &control_spans);
@@ -509,6 +510,13 @@ impl Prepared {
             alpha_deg: alpha.to_degrees(),
         })
     }
+}
+
+/// The series method is linear: each table airfoil stands in by its linear range.
+fn linear_table_notes(wing: &Wing) -> Vec<String> {
+    let tables = wing.airfoils.iter();
+    let notes = tables.filter_map(|(key, a)| Some(a.table.as_ref()?.linear_note(key)));
+    notes.collect()
 }
 
 fn flight_warnings(flight: &Flight, spanwise: &[SpanPoint], out: &mut Vec<String>) {

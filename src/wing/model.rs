@@ -1,9 +1,14 @@
 //! Plain data for a wing described station by station.
 
 use std::collections::BTreeMap;
+use std::sync::Arc;
 
-/// Section (2-D) properties of one named airfoil.
-#[derive(Debug, Clone, Copy, PartialEq)]
+use super::blend::BlendedAirfoil;
+use super::table::SectionTable;
+
+/// Section (2-D) properties of one named airfoil. A table airfoil carries its table; its
+/// linear fields are then those of the table's linear range (what the series method uses).
+#[derive(Debug, Clone, PartialEq)]
 pub struct Airfoil {
     /// Section lift-curve slope, per radian.
     pub lift_slope: f64,
@@ -17,6 +22,10 @@ pub struct Airfoil {
     pub cd1: f64,
     /// Quadratic term of the profile-drag polar.
     pub cd2: f64,
+    /// Section pitching-moment coefficient about the quarter chord, positive nose up.
+    pub cm0: f64,
+    /// The section data as a table, when the airfoil is given by one.
+    pub table: Option<Arc<SectionTable>>,
 }
 
 impl Default for Airfoil {
@@ -29,6 +38,27 @@ impl Default for Airfoil {
             cd0: 0.0,
             cd1: 0.0,
             cd2: 0.0,
+            cm0: 0.0,
+            table: None,
+        }
+    }
+}
+
+impl Airfoil {
+    /// A table airfoil: the linear fields from the table's linear range, cl_max the given
+    /// one or else the table's largest cl.
+    #[must_use]
+    pub fn from_table(table: SectionTable, cl_max: Option<f64>) -> Self {
+        let linear = *table.linear();
+        Self {
+            lift_slope: linear.lift_slope,
+            alpha_zero_lift_deg: linear.alpha_zero_lift_deg,
+            cl_max: cl_max.unwrap_or_else(|| table.largest_cl()),
+            cd0: linear.cd0,
+            cd1: linear.cd1,
+            cd2: linear.cd2,
+            cm0: linear.cm0,
+            table: Some(Arc::new(table)),
         }
     }
 }
@@ -114,7 +144,7 @@ impl Default for Condition {
 }
 
 /// Section properties at one spanwise position, interpolated between stations.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct Section {
     /// Chord, m.
     pub chord: f64,
@@ -142,25 +172,14 @@ impl Section {
     #[must_use]
     pub fn lerp(&self, other: &Self, t: f64) -> Self {
         let mix = |p: f64, q: f64| p + (q - p) * t;
-        let (fa, fb) = (&self.airfoil, &other.airfoil);
         Self {
             chord: mix(self.chord, other.chord),
             twist: mix(self.twist, other.twist),
             x_le: mix(self.x_le, other.x_le),
-            airfoil: Airfoil {
-                lift_slope: mix(fa.lift_slope, fb.lift_slope),
-                alpha_zero_lift_deg: mix(fa.alpha_zero_lift_deg, fb.alpha_zero_lift_deg),
-                cl_max: mix(fa.cl_max, fb.cl_max),
-                cd0: mix(fa.cd0, fb.cd0),
-                cd1: mix(fa.cd1, fb.cd1),
-                cd2: mix(fa.cd2, fb.cd2),
-            },
+            airfoil: self.airfoil.lerp(&other.airfoil, t),
         }
     }
 }
-
-/// Airfoil properties blended linearly between two stations' airfoils.
-pub type BlendedAirfoil = Airfoil;
 
 /// A whole wing: stations, their airfoils, control surfaces and a default condition.
 #[derive(Debug, Clone, PartialEq)]
@@ -208,7 +227,7 @@ impl Wing {
             chord: station.chord,
             twist: station.twist_deg.to_radians(),
             x_le: station.x_le,
-            airfoil: self.airfoil_or_default(&station.airfoil),
+            airfoil: BlendedAirfoil::from(&self.airfoil_or_default(&station.airfoil)),
         }
     }
 

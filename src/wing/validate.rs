@@ -184,6 +184,11 @@ pub fn did_you_mean<'c>(word: &str, candidates: &[&'c str]) -> Option<&'c str> {
 fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
     for (key, a) in &wing.airfoils {
         let place = Place::Airfoil(key.clone());
+        if a.table.is_some() {
+            // The table was checked as it was read; only cl_max is the user's own.
+            positive_cl_max(out, &place, a.cl_max);
+            continue;
+        }
         if finite(out, &place, "lift_slope", a.lift_slope) && a.lift_slope <= 0.0 {
             out.push(problem(
                 place.clone(),
@@ -192,13 +197,7 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
             ));
         }
         finite(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg);
-        if finite(out, &place, "cl_max", a.cl_max) && a.cl_max <= 0.0 {
-            out.push(problem(
-                place.clone(),
-                "cl_max",
-                format!("must be > 0 (got {})", a.cl_max),
-            ));
-        }
+        positive_cl_max(out, &place, a.cl_max);
         if finite(out, &place, "cd0", a.cd0) && a.cd0 < 0.0 {
             out.push(problem(
                 place.clone(),
@@ -208,6 +207,17 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
         }
         finite(out, &place, "cd1", a.cd1);
         finite(out, &place, "cd2", a.cd2);
+        finite(out, &place, "cm0", a.cm0);
+    }
+}
+
+fn positive_cl_max(out: &mut Vec<Problem>, place: &Place, cl_max: f64) {
+    if finite(out, place, "cl_max", cl_max) && cl_max <= 0.0 {
+        out.push(problem(
+            place.clone(),
+            "cl_max",
+            format!("must be > 0 (got {cl_max})"),
+        ));
     }
 }
 
