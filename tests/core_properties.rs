@@ -6,7 +6,8 @@ mod common;
 
 use approx::assert_relative_eq;
 use common::*;
-use gammaline::solver::{prepare, Coefficients, Options};
+use gammaline::solver::series::{prepare, Options};
+use gammaline::solver::Coefficients;
 use gammaline::wing::{Airfoil, Station, Wing};
 use proptest::prelude::*;
 

@@ -7,10 +7,11 @@ use std::f64::consts::{PI, TAU};
 
 use approx::assert_relative_eq;
 use common::*;
-use gammaline::solver::{controls, prepare, Options, DEFAULT_TERMS};
+use gammaline::solver::controls;
+use gammaline::solver::series::{prepare, Options, DEFAULT_TERMS};
 use gammaline::wing::{Condition, Control, ControlKind};
 
-fn prepared(w: &gammaline::wing::Wing) -> gammaline::solver::Prepared {
+fn prepared(w: &gammaline::wing::Wing) -> gammaline::solver::series::Prepared {
     prepare(w, Options::default()).expect("solvable")
 }
 

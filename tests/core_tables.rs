@@ -5,7 +5,7 @@ mod common;
 
 use std::path::Path;
 
-use gammaline::solver::{self, Options};
+use gammaline::solver::{self, Method};
 use gammaline::wing::table::{Columns, SectionTable, TableSource};
 use gammaline::wing::{file, Airfoil, Sections};
 
@@ -64,8 +64,8 @@ fn a_table_linear_below_stall_gives_the_linear_answer() {
     let mut tabled = linear.clone();
     tabled.airfoils.insert("a".into(), airfoil);
     let condition = common::at_alpha(5.0);
-    let a = solver::solve(&linear, &condition, Options::default()).expect("solves");
-    let b = solver::solve(&tabled, &condition, Options::default()).expect("solves");
+    let a = solver::solve(&linear, &condition, Method::default()).expect("solves");
+    let b = solver::solve(&tabled, &condition, Method::default()).expect("solves");
     let (ca, cb) = (a.coefficients, b.coefficients);
     assert!((ca.cl - cb.cl).abs() < 1e-12, "{} vs {}", ca.cl, cb.cl);
     assert!((ca.cdi - cb.cdi).abs() < 1e-12);
@@ -90,14 +90,14 @@ fn below_stall_a_table_section_lifts_like_the_line_and_bends_over_past_it() {
     let section = sections.at(0.4);
     let line = |alpha_deg: f64| 0.1 * (alpha_deg + 2.0);
     for alpha_deg in [-7.5, -2.0, 0.3, 5.0, 7.9] {
-        let (cl, slope) = section.airfoil.lift(f64::to_radians(alpha_deg));
+        let (cl, slope) = section.lift(f64::to_radians(alpha_deg));
         assert!((cl - line(alpha_deg)).abs() < 1e-12, "{alpha_deg}: {cl}");
         assert!((slope - 0.1_f64.to_degrees()).abs() < 1e-9, "{alpha_deg}");
     }
-    let (at_peak, slope_at_peak) = section.airfoil.lift(14_f64.to_radians());
+    let (at_peak, slope_at_peak) = section.lift(14_f64.to_radians());
     assert_eq!((at_peak, slope_at_peak), (1.45, 0.0));
-    assert!(section.airfoil.lift(15_f64.to_radians()).0 < 1.45);
-    assert!(section.airfoil.lift(11_f64.to_radians()).0 < line(11.0));
+    assert!(section.lift(15_f64.to_radians()).0 < 1.45);
+    assert!(section.lift(11_f64.to_radians()).0 < line(11.0));
 }
 
 #[test]
@@ -112,20 +112,20 @@ fn between_a_table_station_and_a_linear_one_the_values_blend() {
     let sections = Sections::of(&wing);
     let tip = wing.stations[1].y;
     let alpha = 13_f64.to_radians();
-    let table_cl = sections.at(0.0).airfoil.lift(alpha).0;
+    let table_cl = sections.at(0.0).lift(alpha).0;
     let thin_cl = std::f64::consts::TAU * alpha;
     for fraction in [0.25, 0.5, 0.9] {
-        let (cl, _) = sections.at(fraction * tip).airfoil.lift(alpha);
+        let (cl, _) = sections.at(fraction * tip).lift(alpha);
         let expected = table_cl + fraction * (thin_cl - table_cl);
         assert!(
             (cl - expected).abs() < 1e-12,
             "{fraction}: {cl} vs {expected}"
         );
     }
-    let mid = sections.at(0.5 * tip).airfoil;
+    let mid = sections.at(0.5 * tip);
     let drag = 0.5 * (0.008 + 0.0001 * 13.0 * 13.0);
     assert!(
-        (mid.drag(alpha) - drag).abs() < 1e-12,
+        (mid.profile_drag(alpha) - drag).abs() < 1e-12,
         "the thin section has no drag"
     );
 }

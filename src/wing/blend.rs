@@ -1,33 +1,11 @@
-//! Section properties blended between two stations, for linear and table airfoils alike.
+//! Section curves between two stations where a table airfoil is involved: the two stations'
+//! own curves, whose values blend (cl(alpha) at a point is the linear-in-y blend of the two
+//! stations' cl(alpha); likewise cd and cm).
 
 use std::sync::Arc;
 
-use super::table::SectionTable;
-use super::Airfoil;
-
-/// Airfoil properties at a point between two stations: the linear parameters blended
-/// linearly in y (what the series method uses), and, where a table airfoil is involved, the
-/// two stations' own curves, whose values are blended (cl(alpha) at the point is the blend of
-/// the two stations' cl(alpha); likewise cd and cm).
-#[derive(Debug, Clone, PartialEq)]
-pub struct BlendedAirfoil {
-    /// Section lift-curve slope, per radian.
-    pub lift_slope: f64,
-    /// Zero-lift angle of attack, degrees.
-    pub alpha_zero_lift_deg: f64,
-    /// Maximum section lift coefficient.
-    pub cl_max: f64,
-    /// Constant term of the profile-drag polar.
-    pub cd0: f64,
-    /// Linear term of the profile-drag polar.
-    pub cd1: f64,
-    /// Quadratic term of the profile-drag polar.
-    pub cd2: f64,
-    /// Pitching-moment coefficient about the quarter chord.
-    pub cm0: f64,
-    /// The stations' curves when either airfoil is a table; `None` when both are linear.
-    pub tables: Option<Arc<TableBlend>>,
-}
+use super::table::{Columns, SectionTable, TableSource};
+use super::{Airfoil, Section};
 
 /// Two stations' section curves and how far the point lies from the first to the second.
 #[derive(Debug, Clone, PartialEq)]
@@ -66,7 +44,31 @@ pub struct LinearCurve {
     pub cm0: f64,
 }
 
+impl LinearCurve {
+    /// The linear parameters of an airfoil (for a table airfoil, those of its linear range).
+    #[must_use]
+    pub fn of(a: &Airfoil) -> Self {
+        Self {
+            lift_slope: a.lift_slope,
+            alpha_zero_lift: a.alpha_zero_lift_deg.to_radians(),
+            cd0: a.cd0,
+            cd1: a.cd1,
+            cd2: a.cd2,
+            cm0: a.cm0,
+        }
+    }
+}
+
 impl Curve {
+    /// An airfoil's own curve: its table, else its straight line.
+    #[must_use]
+    pub fn of(a: &Airfoil) -> Self {
+        a.table.as_ref().map_or_else(
+            || Self::Linear(LinearCurve::of(a)),
+            |t| Self::Table(Arc::clone(t)),
+        )
+    }
+
     /// cl and dcl/dalpha (per radian) at section angle of attack `alpha` (radians).
     #[must_use]
     pub fn lift(&self, alpha: f64) -> (f64, f64) {
@@ -98,7 +100,34 @@ impl Curve {
     }
 }
 
+fn mix(a: f64, b: f64, t: f64) -> f64 {
+    a + (b - a) * t
+}
+
 impl TableBlend {
+    /// A station's own table (nothing to blend).
+    #[must_use]
+    pub fn single(table: &Arc<SectionTable>) -> Arc<Self> {
+        Arc::new(Self {
+            first: Curve::Table(Arc::clone(table)),
+            second: Curve::Table(Arc::clone(table)),
+            t: 0.0,
+        })
+    }
+
+    /// The curves fraction `t` of the way from section `a` to section `b`; `None` when
+    /// neither involves a table (the blended linear parameters then say it all).
+    #[must_use]
+    pub fn between(a: &Section, b: &Section, t: f64) -> Option<Arc<Self>> {
+        (a.curves.is_some() || b.curves.is_some()).then(|| {
+            Arc::new(Self {
+                first: nearest_curve(a),
+                second: nearest_curve(b),
+                t,
+            })
+        })
+    }
+
     /// `(1 - t) f(first) + t f(second)`, skipping a side that has no weight.
     fn mix<T>(&self, f: impl Fn(&Curve) -> T, add: impl Fn(T, T, f64) -> T) -> T {
         if self.t <= 0.0 {
@@ -109,117 +138,77 @@ impl TableBlend {
             add(f(&self.first), f(&self.second), self.t)
         }
     }
-}
 
-fn mix(a: f64, b: f64, t: f64) -> f64 {
-    a + (b - a) * t
-}
-
-impl From<&Airfoil> for BlendedAirfoil {
-    /// The properties at the airfoil's own station.
-    fn from(a: &Airfoil) -> Self {
-        Self {
-            lift_slope: a.lift_slope,
-            alpha_zero_lift_deg: a.alpha_zero_lift_deg,
-            cl_max: a.cl_max,
-            cd0: a.cd0,
-            cd1: a.cd1,
-            cd2: a.cd2,
-            cm0: a.cm0,
-            tables: a.table.as_ref().map(|t| {
-                Arc::new(TableBlend {
-                    first: Curve::Table(Arc::clone(t)),
-                    second: Curve::Table(Arc::clone(t)),
-                    t: 0.0,
-                })
-            }),
-        }
-    }
-}
-
-impl BlendedAirfoil {
-    /// Fraction `t` of the way from `self` to `other`: parameters blended linearly; where
-    /// either side is a table, the two sides' curves kept for blending their values.
-    #[must_use]
-    pub fn lerp(&self, other: &Self, t: f64) -> Self {
-        let tables = (self.tables.is_some() || other.tables.is_some()).then(|| {
-            Arc::new(TableBlend {
-                first: self.curve(),
-                second: other.curve(),
-                t,
-            })
-        });
-        Self {
-            lift_slope: mix(self.lift_slope, other.lift_slope, t),
-            alpha_zero_lift_deg: mix(self.alpha_zero_lift_deg, other.alpha_zero_lift_deg, t),
-            cl_max: mix(self.cl_max, other.cl_max, t),
-            cd0: mix(self.cd0, other.cd0, t),
-            cd1: mix(self.cd1, other.cd1, t),
-            cd2: mix(self.cd2, other.cd2, t),
-            cm0: mix(self.cm0, other.cm0, t),
-            tables,
-        }
-    }
-
-    /// The one curve that stands for this section when it is blended again: its own line,
-    /// or the nearer of its two stations' curves.
-    fn curve(&self) -> Curve {
-        match &self.tables {
-            Some(b) if b.t <= 0.5 => b.first.clone(),
-            Some(b) => b.second.clone(),
-            None => Curve::Linear(self.linear()),
-        }
-    }
-
-    /// The linear parameters as a curve.
-    #[must_use]
-    pub fn linear(&self) -> LinearCurve {
-        LinearCurve {
-            lift_slope: self.lift_slope,
-            alpha_zero_lift: self.alpha_zero_lift_deg.to_radians(),
-            cd0: self.cd0,
-            cd1: self.cd1,
-            cd2: self.cd2,
-            cm0: self.cm0,
-        }
-    }
-
-    /// True when a table airfoil is involved (the linear parameters are then a fit).
-    #[must_use]
-    pub const fn has_table(&self) -> bool {
-        self.tables.is_some()
-    }
-
-    /// Section cl and dcl/dalpha (per radian) at section angle of attack `alpha` (radians,
-    /// to the local chord line): the straight line of the linear parameters, or the blend of
-    /// the two stations' curves.
+    /// Blended cl and dcl/dalpha (per radian) at `alpha` (radians).
     #[must_use]
     pub fn lift(&self, alpha: f64) -> (f64, f64) {
-        match &self.tables {
-            None => Curve::Linear(self.linear()).lift(alpha),
-            Some(b) => b.mix(
-                |c| c.lift(alpha),
-                |p, q, t| (mix(p.0, q.0, t), mix(p.1, q.1, t)),
-            ),
-        }
+        self.mix(
+            |c| c.lift(alpha),
+            |p, q, t| (mix(p.0, q.0, t), mix(p.1, q.1, t)),
+        )
     }
 
-    /// Section profile-drag coefficient at `alpha` (radians): the polar at the line's cl, or
-    /// the blend of the two stations' values.
+    /// Blended profile-drag coefficient at `alpha` (radians).
     #[must_use]
     pub fn drag(&self, alpha: f64) -> f64 {
-        match &self.tables {
-            None => Curve::Linear(self.linear()).drag(alpha),
-            Some(b) => b.mix(|c| c.drag(alpha), mix),
-        }
+        self.mix(|c| c.drag(alpha), mix)
     }
 
-    /// Section pitching-moment coefficient about the quarter chord at `alpha` (radians).
+    /// Blended pitching-moment coefficient at `alpha` (radians).
     #[must_use]
     pub fn moment(&self, alpha: f64) -> f64 {
-        match &self.tables {
-            None => self.cm0,
-            Some(b) => b.mix(|c| c.moment(alpha), mix),
-        }
+        self.mix(|c| c.moment(alpha), mix)
+    }
+
+    /// Every alpha row of the tables involved, in order, without repeats (degrees).
+    fn rows_deg(&self) -> Vec<f64> {
+        let mut alpha: Vec<f64> = [&self.first, &self.second]
+            .into_iter()
+            .filter_map(|c| match c {
+                Curve::Table(t) => Some(t.columns().alpha_deg.clone()),
+                Curve::Linear(_) => None,
+            })
+            .flatten()
+            .collect();
+        alpha.sort_by(f64::total_cmp);
+        alpha.dedup();
+        alpha
+    }
+}
+
+/// The one curve that stands for a section when it is blended again: its airfoil's own, or
+/// the nearer of its two stations' curves.
+fn nearest_curve(s: &Section) -> Curve {
+    match &s.curves {
+        Some(b) if b.t <= 0.5 => b.first.clone(),
+        Some(b) => b.second.clone(),
+        None => Curve::of(&s.airfoil),
+    }
+}
+
+/// A section as an airfoil of its own: its blended linear parameters, and where tables are
+/// involved a table of the blended values at every row of the stations' tables (between those
+/// rows the two agree to interpolation accuracy).
+#[must_use]
+pub fn section_airfoil(s: &Section) -> Airfoil {
+    let table = s.curves.as_ref().and_then(|b| {
+        let alpha_deg = b.rows_deg();
+        let at = |f: &dyn Fn(f64) -> f64| -> Vec<f64> {
+            alpha_deg.iter().map(|a| f(a.to_radians())).collect()
+        };
+        let columns = Columns {
+            cl: at(&|a| b.lift(a).0),
+            cd: at(&|a| b.drag(a)),
+            cm: Some(at(&|a| b.moment(a))),
+            alpha_deg: alpha_deg.clone(),
+        };
+        SectionTable::new(TableSource::Inline, columns).ok()
+    });
+    match table {
+        Some(t) => Airfoil::from_table(t, Some(s.airfoil.cl_max)),
+        None => Airfoil {
+            table: None,
+            ..s.airfoil.clone()
+        },
     }
 }

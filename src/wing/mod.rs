@@ -11,7 +11,7 @@ pub mod sections;
 pub mod table;
 pub mod validate;
 
-pub use blend::{BlendedAirfoil, Curve, LinearCurve, TableBlend};
+pub use blend::{Curve, LinearCurve, TableBlend};
 pub use fingerprint::fingerprint;
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};

@@ -3,7 +3,7 @@
 use std::collections::BTreeMap;
 use std::sync::Arc;
 
-use super::blend::BlendedAirfoil;
+use super::blend::{self, Curve, TableBlend};
 use super::table::SectionTable;
 
 /// Section (2-D) properties of one named airfoil. A table airfoil carries its table; its
@@ -130,6 +130,9 @@ pub struct Condition {
     pub speed: f64,
     /// ISA geopotential altitude, m.
     pub altitude: f64,
+    /// Steady roll rate pb/2V, dimensionless, right wing down positive: the local angle of
+    /// attack at y rises by roll_rate * 2y/b.
+    pub roll_rate: f64,
 }
 
 impl Default for Condition {
@@ -139,6 +142,7 @@ impl Default for Condition {
             target_cl: None,
             speed: 20.0,
             altitude: 0.0,
+            roll_rate: 0.0,
         }
     }
 }
@@ -154,6 +158,9 @@ pub struct Section {
     pub airfoil: BlendedAirfoil,
     /// Leading-edge offset aft, m.
     pub x_le: f64,
+    /// The stations' curves where a table airfoil is involved (`None`: both linear, and
+    /// `airfoil` says it all).
+    pub curves: Option<Arc<TableBlend>>,
 }
 
 /// Where `y` falls among `items` at increasing positions `y_of(item)` (at least two): the
@@ -168,18 +175,74 @@ pub(crate) fn bracket<T>(items: &[T], y_of: impl Fn(&T) -> f64, y: f64) -> (usiz
 }
 
 impl Section {
+    /// Section lift coefficient and its slope dcl/dalpha (per radian) at effective angle of
+    /// attack `alpha_eff` (radians, of the section's chord line, control shifts included):
+    /// the linear section cl = a0 (alpha_eff - alpha_L0) (thin-airfoil theory; Anderson,
+    /// *Fundamentals of Aerodynamics*, sec. 4.8), or, where a table airfoil is involved, the
+    /// blend of the two stations' interpolated curves ([`TableBlend::lift`]).
+    #[must_use]
+    pub fn lift(&self, alpha_eff: f64) -> (f64, f64) {
+        match &self.curves {
+            Some(b) => b.lift(alpha_eff),
+            None => Curve::of(&self.airfoil).lift(alpha_eff),
+        }
+    }
+
+    /// Section profile-drag coefficient at `alpha_eff` (radians): the polar
+    /// cd0 + cd1 cl + cd2 cl^2 at the section's cl, or the tables' blended cd.
+    #[must_use]
+    pub fn profile_drag(&self, alpha_eff: f64) -> f64 {
+        match &self.curves {
+            Some(b) => b.drag(alpha_eff),
+            None => Curve::of(&self.airfoil).drag(alpha_eff),
+        }
+    }
+
+    /// Section pitching-moment coefficient about the quarter chord at `alpha_eff` (radians),
+    /// positive nose up: `cm0`, or the tables' blended cm.
+    #[must_use]
+    pub fn moment(&self, alpha_eff: f64) -> f64 {
+        match &self.curves {
+            Some(b) => b.moment(alpha_eff),
+            None => self.airfoil.cm0,
+        }
+    }
+
+    /// This section as an airfoil of its own (a table of the blended values where tables are
+    /// involved).
+    #[must_use]
+    pub fn to_airfoil(&self) -> Airfoil {
+        blend::section_airfoil(self)
+    }
+
     /// Linear blend, fraction `t` of the way from `self` to `other` (the rule between stations).
     #[must_use]
     pub fn lerp(&self, other: &Self, t: f64) -> Self {
         let mix = |p: f64, q: f64| p + (q - p) * t;
+        let (fa, fb) = (&self.airfoil, &other.airfoil);
         Self {
             chord: mix(self.chord, other.chord),
             twist: mix(self.twist, other.twist),
             x_le: mix(self.x_le, other.x_le),
-            airfoil: self.airfoil.lerp(&other.airfoil, t),
+            airfoil: Airfoil {
+                lift_slope: mix(fa.lift_slope, fb.lift_slope),
+                alpha_zero_lift_deg: mix(fa.alpha_zero_lift_deg, fb.alpha_zero_lift_deg),
+                cl_max: mix(fa.cl_max, fb.cl_max),
+                cd0: mix(fa.cd0, fb.cd0),
+                cd1: mix(fa.cd1, fb.cd1),
+                cd2: mix(fa.cd2, fb.cd2),
+                cm0: mix(fa.cm0, fb.cm0),
+                table: None,
+            },
+            curves: TableBlend::between(self, other, t),
         }
     }
 }
+
+/// Airfoil properties blended linearly between two stations' airfoils (a table airfoil's
+/// linear parameters being those of its linear range; the tables themselves blend in
+/// [`Section::curves`]).
+pub type BlendedAirfoil = Airfoil;
 
 /// A whole wing: stations, their airfoils, control surfaces and a default condition.
 #[derive(Debug, Clone, PartialEq)]
@@ -223,11 +286,13 @@ impl Wing {
     /// The section at a station itself, its airfoil looked up by key.
     #[must_use]
     pub fn station_section(&self, station: &Station) -> Section {
+        let airfoil = self.airfoil_or_default(&station.airfoil);
         Section {
             chord: station.chord,
             twist: station.twist_deg.to_radians(),
             x_le: station.x_le,
-            airfoil: BlendedAirfoil::from(&self.airfoil_or_default(&station.airfoil)),
+            curves: airfoil.table.as_ref().map(TableBlend::single),
+            airfoil,
         }
     }
 
