@@ -6,11 +6,12 @@ use std::path::Path;
 
 use serde_json::{json, Value};
 
+use crate::design::loads::{LoadCase, MassDistribution, SparLoads};
 use crate::design::twist::TwistDesign;
 use crate::report::{csv_row, opt, unsigned_zeros};
 use crate::solver::Solution;
 use crate::text::{fixed, inert};
-use crate::wing::fingerprint;
+use crate::wing::{fingerprint, Wing};
 
 /// Everything `design --loading` prints.
 pub struct TwistReport<'a> {
@@ -159,6 +160,135 @@ pub fn twist_csv(r: &TwistReport) -> String {
             row.optimum_deg.is_finite().then_some(row.optimum_deg),
         ];
         let _ = writeln!(out, "{},{}", csv_row(&values), u8::from(row.added));
+    }
+    out
+}
+
+fn distribution_name(d: MassDistribution) -> &'static str {
+    match d {
+        MassDistribution::Uniform => "uniform",
+        MassDistribution::Chord => "chord",
+    }
+}
+
+/// The readable report of `loads`: the case, the root values and the spanwise table.
+#[must_use]
+pub fn loads_table(wing: &Wing, case: &LoadCase, l: &SparLoads) -> String {
+    let s = &l.solution;
+    let f = &s.flight;
+    let mut out = String::new();
+    let _ = writeln!(
+        out,
+        "wing        {}  [{}]",
+        inert(&wing.name),
+        fingerprint(wing)
+    );
+    let _ = writeln!(out, "method      {}", s.method.name);
+    let _ = writeln!(
+        out,
+        "case        {} kg x load factor {} = {} N at V {} m/s, h {} m ISA (q {} Pa)",
+        fixed(case.mass_kg, 1),
+        fixed(case.load_factor, 2),
+        fixed(f.lift, 1),
+        fixed(f.speed, 1),
+        fixed(f.altitude, 0),
+        fixed(f.q, 1)
+    );
+    let stall = s.first_stall.map_or_else(
+        || "n/a".to_string(),
+        |st| {
+            format!(
+                "{} (first stall at y {} m)",
+                fixed(st.cl_wing, 4),
+                fixed(st.y, 3)
+            )
+        },
+    );
+    let _ = writeln!(
+        out,
+        "lift        CL {} at alpha {} deg; CL_max {}",
+        fixed(s.coefficients.cl, 4),
+        fixed(s.coefficients.alpha_deg, 3),
+        stall
+    );
+    let _ = writeln!(
+        out,
+        "wing mass   {} kg, {} along the span: relieves the root by {} N m",
+        fixed(case.wing_mass_kg, 1),
+        distribution_name(case.distribution),
+        fixed(l.relief_root_bending, 1)
+    );
+    let _ = writeln!(
+        out,
+        "root        right: shear {} N, bending {} N m; left: shear {} N, bending {} N m",
+        fixed(l.root_shear, 1),
+        fixed(l.root_bending, 1),
+        fixed(l.left_root_shear, 1),
+        fixed(l.left_root_bending, 1)
+    );
+    let _ = writeln!(
+        out,
+        "\n{:>9} {:>11} {:>13}",
+        "y m", "shear N", "bending N m"
+    );
+    for row in &l.rows {
+        let _ = writeln!(
+            out,
+            "{:>9} {:>11} {:>13}",
+            fixed(row.y, 4),
+            fixed(row.shear, 1),
+            fixed(row.bending, 1)
+        );
+    }
+    out
+}
+
+/// The JSON object of `loads --format json`; `root_shear_N`, `root_bending_moment_Nm`, `CL`
+/// and the `spanwise` rows (`y_m`, `shear_N`, `bending_Nm`) are the contract.
+#[must_use]
+pub fn loads_json(wing: &Wing, case: &LoadCase, l: &SparLoads) -> Value {
+    let s = &l.solution;
+    let rows: Vec<Value> = l
+        .rows
+        .iter()
+        .map(|r| json!({"y_m": r.y, "shear_N": r.shear, "bending_Nm": r.bending}))
+        .collect();
+    let mut out = json!({
+        "wing": wing.name,
+        "fingerprint": fingerprint(wing),
+        "method": s.method.name,
+        "mass_kg": case.mass_kg,
+        "load_factor": case.load_factor,
+        "wing_mass_kg": case.wing_mass_kg,
+        "mass_distribution": distribution_name(case.distribution),
+        "speed_m_s": s.flight.speed,
+        "altitude_m": s.flight.altitude,
+        "q_Pa": s.flight.q,
+        "CL": s.coefficients.cl,
+        "alpha_deg": s.coefficients.alpha_deg,
+        "CL_first_stall": s.first_stall.map(|st| st.cl_wing),
+        "lift_N": s.flight.lift,
+        "root_shear_N": l.root_shear,
+        "root_bending_moment_Nm": l.root_bending,
+        "root_shear_left_N": l.left_root_shear,
+        "root_bending_moment_left_Nm": l.left_root_bending,
+        "relief_root_bending_moment_Nm": l.relief_root_bending,
+        "spanwise": rows,
+    });
+    unsigned_zeros(&mut out);
+    out
+}
+
+/// The spanwise shear and bending, with a header row.
+#[must_use]
+pub fn loads_csv(l: &SparLoads) -> String {
+    let mut out = String::from("y_m,shear_N,bending_Nm\n");
+    for r in &l.rows {
+        let _ = writeln!(
+            out,
+            "{}",
+            csv_row(&[Some(r.y), Some(r.shear), Some(r.bending)])
+        );
     }
     out
 }

@@ -114,3 +114,55 @@ fn design_refuses_bad_requests_in_one_line() {
     );
     assert!(!Path::new(out).exists(), "nothing written on an error");
 }
+
+#[test]
+fn loads_prints_the_contract_keys_in_every_format() {
+    let base = [
+        "loads",
+        "wings/trainer.toml",
+        "--mass",
+        "900",
+        "--load-factor",
+        "3.8",
+    ];
+    let more = ["--wing-mass", "120", "--speed", "60"];
+    let j = json(&gammaline(
+        &[&base[..], &more[..], &["--format", "json"]].concat(),
+    ));
+    for key in ["root_shear_N", "root_bending_moment_Nm", "CL"] {
+        assert!(j[key].as_f64().is_some(), "{key} in {j}");
+    }
+    let rows = j["spanwise"].as_array().expect("rows");
+    let tip = rows.last().unwrap();
+    assert_eq!(
+        tip["shear_N"].as_f64(),
+        Some(0.0),
+        "nothing outboard of the tip (statics)"
+    );
+    assert!(rows
+        .iter()
+        .all(|r| r["y_m"].is_f64() && r["bending_Nm"].is_f64()));
+    // Lift = N m g (the load factor's definition), g0 = 9.80665 (shared reference, sec. 5).
+    assert!((j["lift_N"].as_f64().unwrap() - 3.8 * 900.0 * 9.806_65).abs() < 1e-6);
+    let csv = gammaline(&[&base[..], &more[..], &["--format", "csv"]].concat());
+    assert!(String::from_utf8_lossy(&csv.stdout).starts_with("y_m,shear_N,bending_Nm\n"));
+    let table = gammaline(&[&base[..], &more[..]].concat());
+    assert!(String::from_utf8_lossy(&table.stdout).contains("bending N m"));
+}
+
+#[test]
+fn loads_beyond_cl_max_is_one_clear_line() {
+    let o = gammaline(&[
+        "loads",
+        "wings/trainer.toml",
+        "--mass",
+        "900",
+        "--load-factor",
+        "6",
+    ]);
+    let err = one_line_error(&o);
+    assert!(
+        err.contains("CL_max") && err.contains("trainer.toml"),
+        "{err}"
+    );
+}

@@ -3,6 +3,7 @@
 
 mod commands;
 mod design;
+mod loads;
 
 use std::path::PathBuf;
 use std::process::ExitCode;
@@ -42,6 +43,8 @@ enum Command {
     Sweep(SweepArgs),
     /// Design the twist for a spanwise loading at a lift coefficient; writes a new wing file.
     Design(design::DesignArgs),
+    /// Shear force and bending moment along the span at a load factor.
+    Loads(loads::LoadsArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
         /// Wing files (TOML).
@@ -149,6 +152,7 @@ pub fn run() -> ExitCode {
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
         Some(Command::Design(args)) => design::run(&args),
+        Some(Command::Loads(args)) => loads::run(&args),
         Some(Command::Open { files }) => {
             return workbench(files, cli.session, cli.ascii, cli.notebook)
         }
