@@ -130,10 +130,7 @@ impl<'a> Locator<'a> {
         if value.starts_with('{') {
             return Some("an inline table");
         }
-        let token: &str = value
-            .split(|c: char| c == '\n' || c == '#' || c == ',' || c == '}')
-            .next()?
-            .trim();
+        let token: &str = value.split(['\n', '#', ',', '}']).next()?.trim();
         let date_like = token.starts_with(|c: char| c.is_ascii_digit())
             && token.contains(['-', ':'])
             && token
