@@ -5,6 +5,7 @@ use std::path::{Path, PathBuf};
 
 use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
+use crate::report_design;
 use crate::solver::{self, FreeStream, Method, PreparedWing};
 use crate::text;
 use crate::wing::validate::MAX_ALPHA_DEG;
@@ -112,10 +113,21 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
         .solve(&c)
         .map_err(|e| format!("{}: {e}", shown(path)))?;
     warn(path, &s.warnings);
+    let roll = super::design::roll_of(path, &wing, &c, &args.condition)?;
     let out = match args.format {
-        Format::Line => format!("{}\n", report::line(&wing, &s, c.target_cl)),
-        Format::Table => report::table(&wing, &s, c.target_cl),
-        Format::Json => format!("{}\n", report::json(&wing, &s, c.target_cl)),
+        Format::Line => format!(
+            "{}{}\n",
+            report::line(&wing, &s, c.target_cl),
+            report_design::roll_line(roll.as_ref())
+        ),
+        Format::Table => {
+            report_design::with_roll_table(&report::table(&wing, &s, c.target_cl), roll.as_ref())
+        }
+        Format::Json => {
+            let mut json = report::json(&wing, &s, c.target_cl);
+            report_design::add_roll_json(&mut json, roll.as_ref());
+            format!("{json}\n")
+        }
         Format::Csv => report::csv(&s),
     };
     emit(&out, args.format)
