@@ -81,7 +81,7 @@ pub(super) fn write_wing(
             file::to_toml(wing)
         )
     };
-    crate::session::write_atomic(output, text.as_bytes())
+    crate::fsio::write_atomic(output, text.as_bytes())
         .map_err(|e| inert(&format!("{}: cannot write: {e}", output.display())))
 }
 
