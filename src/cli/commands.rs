@@ -10,7 +10,7 @@ use crate::text::inert;
 use crate::wing::{file, validate, Condition, Geometry, Wing};
 
 /// Writes to stdout; a closed pipe (`| head`) ends the output quietly instead of failing.
-fn emit(text: &str) -> Result<(), String> {
+pub(super) fn emit(text: &str) -> Result<(), String> {
     let mut out = std::io::stdout().lock();
     match out.write_all(text.as_bytes()).and_then(|()| out.flush()) {
         Err(e) if e.kind() != std::io::ErrorKind::BrokenPipe => Err(format!("stdout: {e}")),

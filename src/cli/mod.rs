@@ -2,6 +2,7 @@
 //! A thin shell over the core: parse flags, read files, call the solver, print a report.
 
 mod commands;
+mod verify;
 
 use std::path::PathBuf;
 use std::process::ExitCode;
@@ -49,6 +50,12 @@ enum Command {
         /// Wing files (TOML).
         #[arg(required = true, value_name = "FILE")]
         files: Vec<PathBuf>,
+    },
+    /// Run the published verification cases and print each with its source; exit 1 if any fails.
+    Verify {
+        /// Output format.
+        #[arg(long, value_enum, default_value_t = verify::VerifyFormat::Table)]
+        format: verify::VerifyFormat,
     },
 }
 
@@ -136,6 +143,7 @@ pub fn run() -> ExitCode {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
+        Some(Command::Verify { format }) => return verify::verify(format),
         Some(Command::Open { files }) => {
             return workbench(files, cli.session, cli.ascii, cli.notebook)
         }
