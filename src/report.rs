@@ -5,7 +5,7 @@ use std::fmt::Write as _;
 
 use serde_json::{json, Value};
 
-use crate::solver::{Coefficients, Solution, SpanPoint, METHOD};
+use crate::solver::{Coefficients, Solution, SpanPoint, SweepPoint};
 use crate::text::{fixed, inert, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
@@ -61,7 +61,7 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     );
     format!(
         "{name} | {cond} | CL {cl} CDi {cdi} CDp {cdp} CD {cd} L/D {ld} e {e} \
-         CLa {cla}/rad Cl_roll {roll} Cn {cn} Mroot {m} N m {stall} | {METHOD} N={n} | wing {hash}",
+         CLa {cla}/rad Cl_roll {roll} Cn {cn} Mroot {m} N m {stall} | {method} N={n} | wing {hash}",
         name = inert(&wing.name),
         cond = condition_text(s, target_cl),
         cl = fixed(c.cl, 4),
@@ -74,7 +74,8 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         roll = fixed(c.cl_roll, 5),
         cn = fixed(c.cn, 5),
         m = fixed(s.flight.root_bending_moment, 1),
-        n = s.terms,
+        method = s.method.name,
+        n = s.method.resolution,
         hash = fingerprint(wing),
     )
 }
@@ -93,7 +94,7 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         inert(&wing.name),
         fingerprint(wing)
     );
-    let _ = writeln!(out, "method      {METHOD}, N = {}", s.terms);
+    let _ = writeln!(out, "method      {}", method_text(s));
     let _ = writeln!(
         out,
         "geometry    b {} m  S {} m^2  AR {}  taper {}  MAC {} m at y {} m",
@@ -183,6 +184,39 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     out
 }
 
+/// The method line of the table: name, resolution and, for an iterative solve, its
+/// convergence.
+fn method_text(s: &Solution) -> String {
+    let m = &s.method;
+    let mut out = format!("{}, N = {}", m.name, m.resolution);
+    if let Some(r) = m.residual {
+        let _ = write!(
+            out,
+            ", converged in {} iterations (residual {r:.1e})",
+            m.iterations
+        );
+    }
+    out
+}
+
+/// The method report's keys: its resolution under the method's own key (`terms`, `panels`),
+/// convergence, and its extra arrays (e.g. `fourier`).
+fn method_json(s: &Solution) -> Value {
+    let m = &s.method;
+    let mut out = json!({
+        m.resolution_key: m.resolution,
+        "converged": m.converged(),
+        "iterations": m.iterations,
+        "residual": m.residual,
+    });
+    if let Value::Object(map) = &mut out {
+        for (key, values) in &m.extras {
+            map.insert((*key).to_string(), json!(values));
+        }
+    }
+    out
+}
+
 fn point_json(p: &SpanPoint, reynolds: f64) -> Value {
     json!({
         "y_m": p.y,
@@ -214,8 +248,7 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
     let mut out = json!({
         "wing": wing.name,
         "fingerprint": fingerprint(wing),
-        "method": METHOD,
-        "terms": s.terms,
+        "method": s.method.name,
         "alpha_deg": c.alpha_deg,
         "target_CL": target_cl,
         "CL": c.cl,
@@ -258,12 +291,11 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
         "reynolds_mac": f.reynolds_mac,
         "lift_N": f.lift,
         "drag_N": f.drag,
-        "fourier": s.fourier,
         "warnings": s.warnings,
         "stations": points(&s.stations),
         "spanwise": points(&s.spanwise),
     });
-    for part in [geometry_and_moments, flight] {
+    for part in [geometry_and_moments, flight, method_json(s)] {
         if let (Value::Object(target), Value::Object(source)) = (&mut out, part) {
             target.extend(source);
         }
@@ -331,15 +363,25 @@ pub enum SweepStyle {
     Json,
 }
 
-/// An alpha sweep: one row per angle of attack, with lift and drag in N at dynamic pressure `q`.
+/// An alpha sweep's rows and what they were computed with.
+#[derive(Debug, Clone, Copy)]
+pub struct SweepTable<'a> {
+    /// The planform (for lift and drag in N).
+    pub geometry: &'a Geometry,
+    /// The method's name.
+    pub method: &'a str,
+    /// Dynamic pressure, Pa.
+    pub q: f64,
+    /// One row per angle of attack.
+    pub points: &'a [SweepPoint],
+}
+
+/// An alpha sweep: one row per angle of attack, with lift and drag in N at the table's
+/// dynamic pressure.
 #[must_use]
-pub fn sweep(
-    wing: &Wing,
-    g: &Geometry,
-    points: &[Coefficients],
-    q: f64,
-    style: SweepStyle,
-) -> String {
+pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
+    let (g, q) = (table.geometry, table.q);
+    let points: Vec<Coefficients> = table.points.iter().map(|p| p.coefficients).collect();
     let ld = |c: &Coefficients| (c.cd > 0.0).then(|| c.cl / c.cd);
     match style {
         SweepStyle::Json => {
@@ -354,7 +396,7 @@ pub fn sweep(
                 })
                 .collect();
             let mut obj = json!({
-                "wing": wing.name, "fingerprint": fingerprint(wing), "method": METHOD,
+                "wing": wing.name, "fingerprint": fingerprint(wing), "method": table.method,
                 "q_Pa": q, "area_m2": g.area, "points": rows,
             });
             unsigned_zeros(&mut obj);
@@ -362,7 +404,7 @@ pub fn sweep(
         }
         SweepStyle::Csv => {
             let mut out = String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn\n");
-            for c in points {
+            for c in &points {
                 let row = [
                     Some(c.alpha_deg),
                     Some(c.cl),
@@ -385,7 +427,7 @@ pub fn sweep(
                 "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
                 "alpha", "CL", "CDi", "CDp", "CD", "e", "L/D", "lift N"
             );
-            for c in points {
+            for c in &points {
                 let _ = writeln!(
                     out,
                     "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",

@@ -8,6 +8,8 @@
 //! zero never prints as `-0.000`; full-precision output (CSV, JSON) goes through
 //! [`unsigned_zero`].
 
+use std::fmt::Write as _;
+
 /// Replaces control characters (C0, DEL, C1) and bidirectional overrides with `?`, and tabs
 /// and newlines with a space, so the result is inert on any terminal.
 #[must_use]
@@ -19,6 +21,32 @@ pub fn inert(text: &str) -> String {
             c => c,
         })
         .collect()
+}
+
+/// [`inert`] line by line: line breaks stay, so a multi-line report keeps its shape.
+#[must_use]
+pub fn inert_lines(text: &str) -> String {
+    text.split('\n').map(inert).collect::<Vec<_>>().join("\n")
+}
+
+/// Serialized JSON with every control character (C0, DEL, C1) and bidirectional override
+/// written as a `\uXXXX` escape. serde_json escapes only C0 and line breaks inside strings, so
+/// a raw line break separates documents and stays; any other such character is inside a
+/// string, where the escape reads back unchanged.
+#[must_use]
+pub fn json_escaped(json: &str) -> String {
+    let mut out = String::with_capacity(json.len());
+    for c in json.chars() {
+        if (c.is_control() && c != '\n') || is_bidi_control(c) {
+            let mut units = [0u16; 2];
+            for unit in c.encode_utf16(&mut units) {
+                let _ = write!(out, "\\u{unit:04x}");
+            }
+        } else {
+            out.push(c);
+        }
+    }
+    out
 }
 
 /// Like [`inert`], and also keeps only printable ASCII (for the ASCII mode and for
@@ -50,6 +78,20 @@ pub fn signed(v: f64, decimals: usize) -> String {
     }
 }
 
+/// A number quoted in a message: the shortest form that reads back to the same value, in
+/// exponent form when plain digits would be long (`1e300`, `2.5e-9`, not 300 digits).
+#[must_use]
+pub fn readable(v: f64) -> String {
+    let magnitude = v.abs();
+    if v == 0.0 {
+        "0".to_string()
+    } else if !v.is_finite() || (1e-4..1e9).contains(&magnitude) {
+        format!("{v}")
+    } else {
+        format!("{v:e}")
+    }
+}
+
 /// `-0.0` made `0.0`, for output at full precision; every other value unchanged.
 #[must_use]
 pub fn unsigned_zero(v: f64) -> f64 {
@@ -76,7 +118,10 @@ fn is_zero_digits(text: &str) -> bool {
 
 /// Characters that reorder the text around them and can disguise what is on screen.
 const fn is_bidi_control(c: char) -> bool {
-    matches!(c, '\u{202A}'..='\u{202E}' | '\u{2066}'..='\u{2069}' | '\u{200E}' | '\u{200F}')
+    matches!(
+        c,
+        '\u{202A}'..='\u{202E}' | '\u{2066}'..='\u{2069}' | '\u{200E}' | '\u{200F}' | '\u{061C}'
+    )
 }
 
 #[cfg(test)]
@@ -106,6 +151,34 @@ mod tests {
         assert_eq!(fixed(f64::NEG_INFINITY, 2), "-inf");
         assert!(unsigned_zero(-0.0).is_sign_positive());
         assert_eq!(unsigned_zero(-2.5e-18), -2.5e-18);
+    }
+
+    #[test]
+    fn json_escapes_c1_and_bidi_and_reads_back() {
+        let value = serde_json::json!({ "name": "a\u{1b}]0;t\u{7}\u{9b}\u{85}\u{202e}\u{2066}b" });
+        let text = json_escaped(&value.to_string());
+        assert!(
+            !text.chars().any(|c| c.is_control() || is_bidi_control(c)),
+            "{text}"
+        );
+        assert!(
+            text.contains("\\u009b") && text.contains("\\u202e"),
+            "{text}"
+        );
+        let back: serde_json::Value = serde_json::from_str(&text).expect("still JSON");
+        assert_eq!(back, value);
+        assert_eq!(inert_lines("a\u{1b}\nb\u{9b}"), "a?\nb?");
+    }
+
+    #[test]
+    fn quoted_numbers_stay_short() {
+        assert_eq!(readable(1e300), "1e300");
+        assert_eq!(readable(-2.5e-9), "-2.5e-9");
+        assert_eq!(readable(-0.0), "0");
+        assert_eq!(readable(0.15), "0.15");
+        assert_eq!(readable(-4.0), "-4");
+        assert_eq!(readable(123_456_789.0), "123456789");
+        assert_eq!(readable(f64::INFINITY), "inf");
     }
 
     #[test]

@@ -126,8 +126,7 @@ fn json_agrees_with_the_library() {
     let mut c = w.condition;
     c.alpha_deg = 3.5;
     c.target_cl = None;
-    let s =
-        gammaline::solver::solve(&w, &c, gammaline::solver::Options::default()).expect("solves");
+    let s = gammaline::solver::solve(&w, &c, gammaline::solver::Method::default()).expect("solves");
     assert_eq!(v["CL"].as_f64(), Some(s.coefficients.cl));
     assert_eq!(v["CDi"].as_f64(), Some(s.coefficients.cdi));
     assert_eq!(v["alpha_deg"].as_f64(), Some(3.5));
@@ -371,4 +370,56 @@ fn help_is_there_for_every_command() {
         assert!(o.status.success());
         assert!(stdout(&o).contains("Usage: gammaline"), "{command}");
     }
+}
+
+#[test]
+fn sweep_takes_negative_flag_values_and_explains_a_negative_step() {
+    let o = gammaline(&[
+        "sweep",
+        "wings/trainer.toml",
+        "--from",
+        "-4",
+        "--to",
+        "-2",
+        "--step",
+        "1",
+        "--format",
+        "csv",
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    assert_eq!(stdout(&o).lines().count(), 4, "{}", stdout(&o));
+    let o = gammaline(&["sweep", "wings/trainer.toml", "--step", "-1"]);
+    assert_eq!(o.status.code(), Some(2));
+    let err = stderr(&o);
+    assert!(
+        err.contains("--step must be > 0 (got -1)") && err.contains("--to"),
+        "{err}"
+    );
+    assert_eq!(err.lines().count(), 1, "{err}");
+}
+
+#[test]
+fn sweep_states_its_point_limit_in_the_help_and_the_refusal() {
+    let help = stdout(&gammaline(&["sweep", "--help"]));
+    assert!(help.contains("at most 100000 points"), "{help}");
+    let o = gammaline(&["sweep", "wings/trainer.toml", "--step", "0.00001"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(stderr(&o).contains("at most 100000"), "{}", stderr(&o));
+}
+
+#[test]
+fn a_file_over_the_size_limit_is_refused_with_the_limit() {
+    let dir = std::env::temp_dir().join(format!("gammaline-big-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp folder");
+    let big = dir.join("big.toml");
+    let f = std::fs::File::create(&big).expect("create");
+    f.set_len(64 << 20).expect("a sparse 64 MiB file");
+    for command in ["check", "solve"] {
+        let o = gammaline(&[command, big.to_str().expect("utf-8")]);
+        assert_eq!(o.status.code(), Some(2));
+        let err = stderr(&o);
+        assert!(err.contains("larger than the 16 MiB limit"), "{err}");
+        assert_eq!(err.lines().count(), 1, "{err}");
+    }
+    let _ = std::fs::remove_dir_all(dir);
 }

@@ -8,7 +8,7 @@
 mod common;
 
 use common::*;
-use gammaline::solver::{prepare, Options, DEFAULT_TERMS};
+use gammaline::solver::series::{prepare, Options, DEFAULT_TERMS};
 use gammaline::wing::Wing;
 
 const COUNTS: [usize; 12] = [10, 20, 30, 40, 60, 80, 120, 160, 240, 320, 480, 640];

@@ -7,7 +7,7 @@ use std::f64::consts::PI;
 
 use approx::assert_relative_eq;
 use common::*;
-use gammaline::solver::{prepare, Options, Prepared, DEFAULT_TERMS};
+use gammaline::solver::series::{prepare, Options, Prepared, DEFAULT_TERMS};
 use gammaline::wing::{Condition, Wing};
 
 fn prepared(w: &Wing, terms: usize) -> Prepared {

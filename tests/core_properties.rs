@@ -8,7 +8,8 @@ use std::f64::consts::PI;
 
 use approx::assert_relative_eq;
 use common::*;
-use gammaline::solver::{prepare, Coefficients, Options};
+use gammaline::solver::series::{prepare, Options};
+use gammaline::solver::Coefficients;
 use gammaline::wing::{Airfoil, Station, Wing};
 use proptest::prelude::*;
 

@@ -9,10 +9,10 @@ use std::f64::consts::{PI, TAU};
 
 use approx::assert_relative_eq;
 use common::*;
-use gammaline::solver::{prepare, Options, DEFAULT_TERMS};
+use gammaline::solver::series::{prepare, Options, DEFAULT_TERMS};
 use gammaline::verify::wings::bell_loaded;
 
-fn prepared(w: &gammaline::wing::Wing) -> gammaline::solver::Prepared {
+fn prepared(w: &gammaline::wing::Wing) -> gammaline::solver::series::Prepared {
     prepare(w, Options::default()).expect("solvable")
 }
 

@@ -4,7 +4,7 @@
 
 mod tui_support;
 
-use gammaline::solver::Options;
+use gammaline::solver::Method;
 use gammaline::tui::app::Mode;
 use gammaline::tui::doc::Doc;
 use gammaline::tui::keymap::{self, CAUTIONS};
@@ -153,7 +153,7 @@ fn the_current_wings_whole_name_is_in_the_wing_bar() {
         "Light trainer, flaps 10",
     ] {
         app.docs
-            .push(Doc::new(named(name), None, Options::default()));
+            .push(Doc::new(named(name), None, Method::default()));
     }
     for current in 0..4 {
         app.current = current;
@@ -172,7 +172,7 @@ fn with_many_wings_the_current_one_stays_visible() {
         app.docs.push(Doc::new(
             named(&format!("Study wing number {i}")),
             None,
-            Options::default(),
+            Method::default(),
         ));
     }
     app.current = 11;

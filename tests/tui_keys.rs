@@ -3,7 +3,7 @@
 mod tui_support;
 
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use gammaline::solver::Options;
+use gammaline::solver::Method;
 use gammaline::tui::app::{App, Mode};
 use gammaline::tui::cells::Sheet;
 use gammaline::tui::doc::Doc;
@@ -444,7 +444,7 @@ fn saving_keeps_the_files_comments_and_layout() {
     let path = dir.path().join("drone.toml");
     std::fs::write(&path, &original).expect("write");
     let wing = file::read(&path).expect("reads");
-    let doc = Doc::new(wing, Some(path.clone()), Options::default());
+    let doc = Doc::new(wing, Some(path.clone()), Method::default());
     let mut app = App::new(
         vec![doc],
         Theme::monochrome(UNICODE),
@@ -474,7 +474,7 @@ fn a_condition_change_re_solves_like_a_fresh_solve() {
     let mut app = app(dir.path());
     // Solution has no PartialEq: its Debug text holds every number at full precision.
     let fresh = |app: &App| {
-        let s = gammaline::tui::doc::solve(&app.doc().wing, Options::default());
+        let s = gammaline::tui::doc::solve(&app.doc().wing, Method::default());
         format!("{s:?}")
     };
     let shown = |app: &App| format!("{:?}", app.doc().solved);

@@ -8,7 +8,7 @@ use std::collections::BTreeMap;
 use std::path::{Path, PathBuf};
 use std::process::Command;
 
-use gammaline::solver::{self, Options};
+use gammaline::solver::{self, Method};
 use gammaline::wing::{file, Airfoil, Condition, Control, ControlKind, Station, Wing};
 use proptest::prelude::*;
 
@@ -125,7 +125,7 @@ fn every_example_wing_loads_and_solves_without_unmeant_warnings() {
     for path in examples {
         let wing = file::read(&manifest().join(&path))
             .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
-        let solution = solver::solve(&wing, &wing.condition, Options::default())
+        let solution = solver::solve(&wing, &wing.condition, Method::default())
             .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
         let name = path
             .file_name()
@@ -328,6 +328,7 @@ fn valid_wing() -> impl Strategy<Value = Wing> {
                     target_cl: cl,
                     speed,
                     altitude,
+                    roll_rate: 0.0,
                 };
                 Wing {
                     name,

@@ -37,7 +37,8 @@ pub struct Cli {
 enum Command {
     /// Solve one wing at one condition and print the result.
     Solve(SolveArgs),
-    /// Solve one wing over a range of angles of attack (a lift and drag polar).
+    /// Solve one wing over a range of angles of attack (a lift and drag polar), at most
+    /// 100000 points.
     Sweep(SweepArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
@@ -112,8 +113,13 @@ struct SweepArgs {
         default_value_t = 12.0
     )]
     to: f64,
-    /// Step, degrees.
-    #[arg(long, value_name = "DEG", default_value_t = 1.0)]
+    /// Step, degrees, > 0 (the sweep runs from --from up to --to, at most 100000 points).
+    #[arg(
+        long,
+        value_name = "DEG",
+        allow_negative_numbers = true,
+        default_value_t = 1.0
+    )]
     step: f64,
     #[command(flatten)]
     condition: ConditionArgs,
@@ -138,7 +144,10 @@ enum Format {
 /// Parses the command line and runs it; the binary's whole `main`.
 #[must_use]
 pub fn run() -> ExitCode {
-    let cli = Cli::parse();
+    let cli = match Cli::try_parse() {
+        Ok(cli) => cli,
+        Err(e) => return flag_error(&e),
+    };
     let result = match cli.command {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
@@ -152,10 +161,22 @@ pub fn run() -> ExitCode {
     match result {
         Ok(()) => ExitCode::SUCCESS,
         Err(message) => {
-            eprintln!("error: {message}");
+            commands::say("error", &message);
             ExitCode::from(EXIT_BAD_INPUT)
         }
     }
+}
+
+/// Help and version as clap prints them; a bad flag in plain text made inert, since clap
+/// quotes the offending argument, which may be a hostile file name.
+fn flag_error(e: &clap::Error) -> ExitCode {
+    use clap::error::ErrorKind;
+    if matches!(e.kind(), ErrorKind::DisplayHelp | ErrorKind::DisplayVersion) {
+        let _ = e.print();
+        return ExitCode::SUCCESS;
+    }
+    eprint!("{}", crate::text::inert_lines(&e.render().to_string()));
+    ExitCode::from(u8::try_from(e.exit_code()).unwrap_or(EXIT_BAD_INPUT))
 }
 
 fn workbench(

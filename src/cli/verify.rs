@@ -28,7 +28,12 @@ pub(super) fn verify(format: VerifyFormat) -> ExitCode {
         VerifyFormat::Json => render::json(&outcomes),
         VerifyFormat::Csv => render::csv(&outcomes),
     };
-    if let Err(message) = super::commands::emit(&text) {
+    let as_format = match format {
+        VerifyFormat::Table => super::Format::Table,
+        VerifyFormat::Json => super::Format::Json,
+        VerifyFormat::Csv => super::Format::Csv,
+    };
+    if let Err(message) = super::commands::emit(&text, as_format) {
         eprintln!("error: {message}");
         return ExitCode::from(super::EXIT_BAD_INPUT);
     }

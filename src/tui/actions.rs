@@ -22,7 +22,7 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
     app.add_doc(Doc::new(
         wing,
         Some(path.to_path_buf()),
-        app.settings.options,
+        app.settings.method,
     ));
     app.clamp_cursor();
     let msg = format!("opened {}", path.display());
@@ -144,9 +144,9 @@ pub fn revert(app: &mut App) {
     };
     match file::read(&path) {
         Ok(wing) => {
-            let options = app.settings.options;
+            let method = app.settings.method;
             let doc = app.current_doc_mut();
-            doc.change(wing.clone(), options);
+            doc.change(wing.clone(), method);
             doc.saved = Some(wing);
             app.clamp_cursor();
             let msg = format!("reverted to {} (u undoes the revert)", path.display());

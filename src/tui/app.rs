@@ -12,7 +12,7 @@ use super::keymap::{self, Action, Dir, ModeKind};
 use super::picker::{self, Picker};
 use super::rows::{self, NewRow};
 use super::theme::Theme;
-use crate::solver::{Options, Solution};
+use crate::solver::{Method, Solution};
 use crate::text::inert;
 use crate::wing::{validate, Wing};
 
@@ -71,8 +71,8 @@ pub struct Reference {
 /// Settings fixed at launch (some changeable from the workbench).
 #[derive(Debug, Clone)]
 pub struct Settings {
-    /// Solver options.
-    pub options: Options,
+    /// The solution method.
+    pub method: Method,
     /// Where copied lines are appended.
     pub notebook: PathBuf,
     /// Where the session is kept (`None`: no session is kept).
@@ -117,7 +117,7 @@ impl App {
     #[must_use]
     pub fn new(mut docs: Vec<Doc>, theme: Theme, settings: Settings) -> Self {
         if docs.is_empty() {
-            docs.push(Doc::new(super::starter::wing(), None, settings.options));
+            docs.push(Doc::new(super::starter::wing(), None, settings.method));
         }
         let offsets = docs.iter().any(|d| cells::offsets_used(&d.wing));
         Self {
@@ -267,13 +267,13 @@ impl App {
             Action::Duplicate => self.add_row(NewRow::Duplicate),
             Action::Delete => self.delete_row(),
             Action::Undo => {
-                let options = self.settings.options;
-                let ok = self.doc_mut().undo(options);
+                let method = self.settings.method;
+                let ok = self.doc_mut().undo(method);
                 self.after_history(ok, "undone", "nothing to undo");
             }
             Action::Redo => {
-                let options = self.settings.options;
-                let ok = self.doc_mut().redo(options);
+                let method = self.settings.method;
+                let ok = self.doc_mut().redo(method);
                 self.after_history(ok, "redone", "nothing to redo");
             }
             Action::Wing(forward) => self.switch_wing(forward),
@@ -419,8 +419,8 @@ impl App {
         {
             return Err(p.to_string());
         }
-        let options = self.settings.options;
-        self.doc_mut().change(wing, options);
+        let method = self.settings.method;
+        self.doc_mut().change(wing, method);
         self.clamp_cursor();
         Ok(())
     }

@@ -3,7 +3,7 @@
 use std::path::PathBuf;
 
 use super::cells::Sheet;
-use crate::solver::{self, Options, Prepared, Solution};
+use crate::solver::{self, Method, PreparedWing, Solution};
 use crate::wing::Wing;
 
 /// Most undo steps kept per wing.
@@ -47,35 +47,14 @@ pub struct Doc {
     pub cursor: Cursor,
     /// The solution of `wing`, or why there is none (already cleaned for display).
     pub solved: Result<Solution, String>,
-    /// The factored system behind `solved`, kept so a change of the condition alone (alpha,
-    /// target CL, speed, altitude) re-solves without building it again.
-    prepared: Option<PreparedFor>,
-}
-
-/// A prepared system and what it was prepared from.
-#[derive(Debug, Clone)]
-struct PreparedFor {
-    wing: Wing,
-    options: Options,
-    prepared: Prepared,
-}
-
-impl PreparedFor {
-    /// Whether `wing` differs from the prepared one at most in its condition and name, which
-    /// the system does not depend on.
-    fn fits(&self, wing: &Wing, options: Options) -> bool {
-        let w = &self.wing;
-        self.options == options
-            && w.symmetric == wing.symmetric
-            && w.stations == wing.stations
-            && w.airfoils == wing.airfoils
-            && w.controls == wing.controls
-    }
+    /// The prepared wing behind `solved`, kept so a change of the condition alone (alpha,
+    /// target CL, speed, altitude) re-solves without preparing again when the method allows.
+    prepared: Option<PreparedWing>,
 }
 
 /// Solves a wing at its own condition; the error is one line for the status area.
-pub fn solve(wing: &Wing, options: Options) -> Result<Solution, String> {
-    solver::prepare(wing, options)
+pub fn solve(wing: &Wing, method: Method) -> Result<Solution, String> {
+    solver::prepare(wing, method)
         .and_then(|p| p.solve(&wing.condition))
         .map_err(|e| crate::text::inert(&e.to_string()))
 }
@@ -83,7 +62,7 @@ pub fn solve(wing: &Wing, options: Options) -> Result<Solution, String> {
 impl Doc {
     /// A wing just read from `path` (or never saved, with `None`).
     #[must_use]
-    pub fn new(wing: Wing, path: Option<PathBuf>, options: Options) -> Self {
+    pub fn new(wing: Wing, path: Option<PathBuf>, method: Method) -> Self {
         let saved = path.as_ref().map(|_| wing.clone());
         let mut doc = Self {
             wing,
@@ -95,7 +74,7 @@ impl Doc {
             solved: Err(String::new()),
             prepared: None,
         };
-        doc.resolve(options);
+        doc.resolve(method);
         doc
     }
 
@@ -112,7 +91,7 @@ impl Doc {
     }
 
     /// Replaces the wing with an edited one, keeping the old one for undo, and re-solves.
-    pub fn change(&mut self, wing: Wing, options: Options) {
+    pub fn change(&mut self, wing: Wing, method: Method) {
         if wing == self.wing {
             return;
         }
@@ -122,46 +101,40 @@ impl Doc {
             self.undo.remove(0);
         }
         self.redo.clear();
-        self.resolve(options);
+        self.resolve(method);
     }
 
     /// Steps back one change; false when there is none.
-    pub fn undo(&mut self, options: Options) -> bool {
+    pub fn undo(&mut self, method: Method) -> bool {
         let Some(previous) = self.undo.pop() else {
             return false;
         };
         self.redo.push(std::mem::replace(&mut self.wing, previous));
-        self.resolve(options);
+        self.resolve(method);
         true
     }
 
     /// Steps forward one undone change; false when there is none.
-    pub fn redo(&mut self, options: Options) -> bool {
+    pub fn redo(&mut self, method: Method) -> bool {
         let Some(next) = self.redo.pop() else {
             return false;
         };
         self.undo.push(std::mem::replace(&mut self.wing, next));
-        self.resolve(options);
+        self.resolve(method);
         true
     }
 
     /// Re-solves the current wing, reusing the prepared system when only the condition (or
     /// the name) changed.
-    pub fn resolve(&mut self, options: Options) {
+    pub fn resolve(&mut self, method: Method) {
         if !self
             .prepared
             .as_ref()
-            .is_some_and(|p| p.fits(&self.wing, options))
+            .is_some_and(|p| p.fits(&self.wing, method))
         {
             self.prepared = None;
-            match solver::prepare(&self.wing, options) {
-                Ok(prepared) => {
-                    self.prepared = Some(PreparedFor {
-                        wing: self.wing.clone(),
-                        options,
-                        prepared,
-                    });
-                }
+            match solver::prepare(&self.wing, method) {
+                Ok(prepared) => self.prepared = Some(prepared),
                 Err(e) => {
                     self.solved = Err(crate::text::inert(&e.to_string()));
                     return;
@@ -170,7 +143,6 @@ impl Doc {
         }
         if let Some(p) = &self.prepared {
             self.solved = p
-                .prepared
                 .solve(&self.wing.condition)
                 .map_err(|e| crate::text::inert(&e.to_string()));
         }

@@ -27,7 +27,7 @@ use std::time::{Duration, Instant};
 use crossterm::event::{self, Event};
 
 use crate::session;
-use crate::solver::Options;
+use crate::solver::Method;
 use app::{App, Settings};
 
 /// Environment variable naming the notebook file.
@@ -80,7 +80,7 @@ pub fn run(options: LaunchOptions) -> ExitCode {
 /// Builds the workbench state for these options (no terminal involved; tests use it).
 #[must_use]
 pub fn build_app(options: &LaunchOptions) -> App {
-    let solver = Options::default();
+    let method = Method::default();
     let explicit_dir = options.session_dir.is_some()
         || std::env::var_os(session::DIR_ENV).is_some_and(|v| !v.is_empty());
     let dir = session::dir(options.session_dir.as_deref());
@@ -90,12 +90,12 @@ pub fn build_app(options: &LaunchOptions) -> App {
         let loaded = session::load(dir);
         notices.extend(loaded.notice);
         if let Some(s) = loaded.session {
-            start = persist::restore(&s, dir, solver);
+            start = persist::restore(&s, dir, method);
         }
     }
     let examples = persist::examples_dir();
     if !options.files.is_empty() {
-        let opened = persist::open_files(&options.files, solver);
+        let opened = persist::open_files(&options.files, method);
         notices.extend(opened.notices);
         // The files replace the last session's saved wings; if none opened, the session
         // stays rather than an empty starter wing.
@@ -119,7 +119,7 @@ pub fn build_app(options: &LaunchOptions) -> App {
     } else if start.docs.is_empty() {
         if let Some(ex) = &examples {
             let files = persist::example_files(ex);
-            let opened = persist::open_files(&files, solver);
+            let opened = persist::open_files(&files, method);
             notices.extend(opened.notices);
             start.docs = opened.docs;
             start.current = 0;
@@ -135,7 +135,7 @@ pub fn build_app(options: &LaunchOptions) -> App {
     }
     let notebook = notebook_path(options, start.notebook.take(), dir.as_deref(), explicit_dir);
     let settings = Settings {
-        options: solver,
+        method,
         notebook,
         session_dir: dir,
         in_tmux: std::env::var_os("TMUX").is_some_and(|v| !v.is_empty()),

@@ -6,7 +6,7 @@ use super::app::{App, Reference};
 use super::cells::Sheet;
 use super::doc::{self, Cursor, Doc};
 use crate::session::{self, CursorState, Session, SessionReference, SessionWing};
-use crate::solver::Options;
+use crate::solver::Method;
 use crate::wing::file;
 
 /// What the workbench starts with.
@@ -37,11 +37,11 @@ pub fn examples_dir() -> Option<PathBuf> {
 
 /// Opens wing files; unreadable ones are reported and skipped.
 #[must_use]
-pub fn open_files(files: &[PathBuf], options: Options) -> Start {
+pub fn open_files(files: &[PathBuf], method: Method) -> Start {
     let mut start = Start::default();
     for path in files {
         match super::actions::read_wing(path) {
-            Ok(wing) => start.docs.push(Doc::new(wing, Some(path.clone()), options)),
+            Ok(wing) => start.docs.push(Doc::new(wing, Some(path.clone()), method)),
             Err(e) => start.notices.push(e),
         }
     }
@@ -66,7 +66,7 @@ pub fn example_files(dir: &Path) -> Vec<PathBuf> {
 /// Rebuilds the workbench from a session. Recovery copies that no longer parse are written
 /// aside into the session folder and reported; missing wing files are reported.
 #[must_use]
-pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
+pub fn restore(session: &Session, dir: &Path, method: Method) -> Start {
     let mut start = Start {
         notebook: session.notebook.clone(),
         ..Start::default()
@@ -74,7 +74,7 @@ pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
     // Where each session wing landed (`None`: it could not be restored).
     let mut index_map = Vec::new();
     for entry in &session.wings {
-        let doc = restore_wing(entry, dir, options, &mut start.notices);
+        let doc = restore_wing(entry, dir, method, &mut start.notices);
         index_map.push(doc.as_ref().map(|_| start.docs.len()));
         start.docs.extend(doc);
     }
@@ -86,7 +86,7 @@ pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
         .min(start.docs.len().saturating_sub(1));
     start.reference = session.reference.as_ref().and_then(|r| {
         let wing = file::parse(&r.wing, Path::new("reference")).ok()?;
-        let solved = doc::solve(&wing, options);
+        let solved = doc::solve(&wing, method);
         // The pinned wing's own tag, or none when that wing is gone.
         let source = index_map
             .get(r.source)
@@ -105,7 +105,7 @@ pub fn restore(session: &Session, dir: &Path, options: Options) -> Start {
 fn restore_wing(
     entry: &SessionWing,
     dir: &Path,
-    options: Options,
+    method: Method,
     notices: &mut Vec<String>,
 ) -> Option<Doc> {
     let from_file = entry.path.as_ref().map(|p| file::read(p));
@@ -117,7 +117,7 @@ fn restore_wing(
                 .unwrap_or_else(|| PathBuf::from("recovered wing"));
             match file::parse(text, &name) {
                 Ok(wing) => {
-                    let mut doc = Doc::new(wing, entry.path.clone(), options);
+                    let mut doc = Doc::new(wing, entry.path.clone(), method);
                     doc.saved = file_result.and_then(Result::ok);
                     doc
                 }
@@ -127,7 +127,7 @@ fn restore_wing(
                 }
             }
         }
-        (None, Some(Ok(wing))) => Doc::new(wing, entry.path.clone(), options),
+        (None, Some(Ok(wing))) => Doc::new(wing, entry.path.clone(), method),
         (None, Some(Err(e))) => {
             notices.push(e.to_string());
             return None;

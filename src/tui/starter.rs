@@ -38,6 +38,7 @@ pub fn wing() -> Wing {
             target_cl: None,
             speed: 30.0,
             altitude: 0.0,
+            roll_rate: 0.0,
         },
     }
 }

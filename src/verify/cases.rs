@@ -8,7 +8,7 @@ use super::wings::{
 };
 use super::{Case, Reading, Tolerance};
 use crate::atmosphere;
-use crate::solver::{self, controls, Options, Prepared, Solution, DEFAULT_TERMS};
+use crate::solver::{self, controls, solution, Method, Solution, DEFAULT_TERMS};
 use crate::wing::{Condition, Control, ControlKind, Wing};
 
 use Tolerance::{Absolute, Relative};
@@ -43,18 +43,25 @@ pub fn cases() -> Vec<Case> {
     all
 }
 
-fn prepared(wing: &Wing, terms: usize) -> Result<Prepared, String> {
-    solver::prepare(wing, Options { terms }).map_err(|e| e.to_string())
-}
-
-fn solved(wing: &Wing, alpha_deg: f64) -> Result<Solution, String> {
+/// The wing solved at `alpha_deg` by `method`, through the method-neutral interface.
+fn solved_by(wing: &Wing, alpha_deg: f64, method: Method) -> Result<Solution, String> {
     let condition = Condition {
         alpha_deg,
         ..Condition::default()
     };
-    prepared(wing, DEFAULT_TERMS)?
-        .solve(&condition)
+    solver::prepare(wing, method)
+        .and_then(|p| p.solve(&condition))
         .map_err(|e| e.to_string())
+}
+
+/// The wing solved at `alpha_deg` by the default method.
+fn solved(wing: &Wing, alpha_deg: f64) -> Result<Solution, String> {
+    solved_by(wing, alpha_deg, Method::default())
+}
+
+/// The lift-curve slope by the default method, per radian.
+fn lift_slope(wing: &Wing) -> Result<f64, String> {
+    Ok(solved(wing, 0.0)?.cl_alpha)
 }
 
 fn missing(what: &str) -> String {
@@ -113,13 +120,13 @@ fn elliptic_cases() -> Vec<Case> {
             ELLIPTIC_SLOPE,
             Relative(1e-10),
             move || {
-                let p = prepared(&wing(), DEFAULT_TERMS)?;
-                let b = p.geometry().span;
+                let s = solved(&wing(), ALPHA_DEG)?;
+                let b = s.geometry.span;
                 let ellipse_area = PI * b * C0 / 4.0;
                 let ar = b * b / ellipse_area;
                 Ok(Reading {
                     expected: TAU / (1.0 + TAU / (PI * ar)),
-                    computed: p.cl_alpha() * p.geometry().area / ellipse_area,
+                    computed: s.cl_alpha * s.geometry.area / ellipse_area,
                 })
             },
         ),
@@ -183,25 +190,17 @@ fn rectangular_table_cases() -> Vec<Case> {
             CONVERGED,
             slope,
             Absolute(0.5e-3),
-            move || Ok(prepared(&rectangular(ar), DEFAULT_TERMS)?.cl_alpha()),
+            move || lift_slope(&rectangular(ar)),
         ));
         cases.push(Case::fixed(
             format!("rectangular AR {ar}: tau from CL_alpha"),
             TAU_RELATION,
             tau,
             Absolute(1e-3),
-            move || {
-                let a = prepared(&rectangular(ar), DEFAULT_TERMS)?.cl_alpha();
-                Ok(tau_from_slope(a, TAU, ar))
-            },
+            move || Ok(solution::tau(lift_slope(&rectangular(ar))?, TAU, ar)),
         ));
     }
     cases
-}
-
-/// tau from a = a0/(1 + (a0/(pi AR))(1 + tau)) (Anderson, eq. 5.70), solved for tau.
-fn tau_from_slope(slope: f64, a0: f64, aspect_ratio: f64) -> f64 {
-    (a0 / slope - 1.0) * PI * aspect_ratio / a0 - 1.0
 }
 
 /// The taper ratio of least induced drag of untwisted straight-tapered wings, scanned in
@@ -226,7 +225,7 @@ fn least_delta_taper(aspect_ratio: f64) -> Result<f64, String> {
     let mut best = (f64::NAN, f64::MAX);
     for i in 20..=60 {
         let taper = f64::from(i) / 100.0;
-        let c = prepared(&tapered(aspect_ratio, taper), DEFAULT_TERMS)?.coefficients(0.1);
+        let c = solved(&tapered(aspect_ratio, taper), 5.0)?.coefficients;
         let delta = c.delta.ok_or_else(|| missing("delta"))?;
         if delta < best.1 {
             best = (taper, delta);
@@ -242,10 +241,7 @@ fn least_delta_taper(aspect_ratio: f64) -> Result<f64, String> {
 /// docs/reference-values.md) allow half a unit in the last digit plus the default term count's
 /// truncation error for tapered wings: 5e-4 and 1%.
 fn example_cases() -> Vec<Case> {
-    let coefficients = || {
-        let p = prepared(&tapered(8.0, 0.8), DEFAULT_TERMS)?;
-        Ok::<_, String>(p.coefficients(5f64.to_radians()))
-    };
+    let coefficients = || Ok::<_, String>(solved(&tapered(8.0, 0.8), 5.0)?.coefficients);
     vec![
         Case::fixed(
             "Example 5.1: CL (figure-read)",
@@ -326,11 +322,11 @@ fn helmbold_cases() -> Vec<Case> {
             || {
                 // span 2 and aspect ratio 40: root chord 8/(pi AR); slope referred to the
                 // ellipse's own area, as in the elliptic cases
-                let p = prepared(
+                let s = solved(
                     &elliptic_at_collocation(8.0 / (PI * 40.0), DEFAULT_TERMS),
-                    DEFAULT_TERMS,
+                    0.0,
                 )?;
-                Ok(p.cl_alpha() * p.geometry().area / (4.0 / 40.0))
+                Ok(s.cl_alpha * s.geometry.area / (4.0 / 40.0))
             },
         ),
         Case::fixed(
@@ -338,7 +334,7 @@ fn helmbold_cases() -> Vec<Case> {
             HELMBOLD,
             helmbold(6.0),
             Relative(1e-3),
-            || Ok(prepared(&rectangular(6.0), DEFAULT_TERMS)?.cl_alpha()),
+            || lift_slope(&rectangular(6.0)),
         ),
     ]
 }
@@ -387,13 +383,10 @@ fn flap_cases() -> Vec<Case> {
                 deflection_deg: 10.0,
                 effectiveness: None,
             });
-            let clean = prepared(&tapered(7.0, 0.6), DEFAULT_TERMS)?;
-            let flapped = prepared(&w, DEFAULT_TERMS)?;
-            let alpha = 2f64.to_radians();
             let tau_f = controls::thin_airfoil_effectiveness(0.25);
             Ok(Reading {
-                expected: clean.cl_alpha() * (alpha + tau_f * 10f64.to_radians()),
-                computed: flapped.coefficients(alpha).cl,
+                expected: lift_slope(&tapered(7.0, 0.6))? * (2.0 + tau_f * 10.0).to_radians(),
+                computed: solved(&w, 2.0)?.coefficients.cl,
             })
         },
     ));
@@ -457,42 +450,76 @@ fn atmosphere_cases() -> Vec<Case> {
     cases
 }
 
-/// Grid convergence of the solver: the relative change of each quantity between the default
-/// term count and a finer one must stay inside the criterion of docs/theory.md (1e-4 for
-/// smooth wings; 1% for a part-span aileron, a step in alpha_L0 that a sine series resolves
-/// slowly).
+/// One method's convergence study: its default resolution against finer ones, with the
+/// criterion each quantity must meet (docs/theory.md). A method joins the verification report
+/// by adding its row to [`STUDIES`].
+struct Study {
+    /// The method at its default resolution.
+    default: Method,
+    /// Twice as fine, for smooth wings.
+    finer: Method,
+    /// Four times as fine, for a part-span control (a step in alpha_L0).
+    finest: Method,
+    /// Largest relative change allowed on a smooth wing.
+    smooth: f64,
+    /// Largest relative change allowed for a part-span control's rolling moment.
+    control: f64,
+}
+
+/// Every method's study: 1e-4 on smooth wings; 1% for a part-span aileron, which a sine
+/// series resolves slowly (docs/theory.md).
+const STUDIES: [Study; 1] = [Study {
+    default: Method::series(DEFAULT_TERMS),
+    finer: Method::series(2 * DEFAULT_TERMS),
+    finest: Method::series(4 * DEFAULT_TERMS),
+    smooth: 1e-4,
+    control: 0.01,
+}];
+
+/// Grid convergence of each method: the relative change of each quantity between the
+/// default resolution and a finer one stays inside the method's criterion.
 fn convergence_cases() -> Vec<Case> {
-    let change = |wing: fn() -> Wing, factor: usize, quantity: fn(&Prepared) -> f64| {
+    STUDIES.iter().flat_map(study_cases).collect()
+}
+
+fn study_cases(study: &Study) -> [Case; 3] {
+    let Study {
+        default,
+        finer,
+        finest,
+        smooth,
+        control,
+    } = *study;
+    let name = default.short_name();
+    let change = move |wing: fn() -> Wing, fine: Method, quantity: fn(&Solution) -> f64| {
         move || {
             let w = wing();
-            let coarse = quantity(&prepared(&w, DEFAULT_TERMS)?);
-            let fine = quantity(&prepared(&w, factor * DEFAULT_TERMS)?);
+            let coarse = quantity(&solved_by(&w, 5.0, default)?);
+            let fine = quantity(&solved_by(&w, 5.0, fine)?);
             Ok((coarse - fine).abs() / fine.abs())
         }
     };
-    vec![
+    [
         Case::fixed(
-            format!("series: smooth taper CL_alpha, N {DEFAULT_TERMS} vs 2N, rel. change"),
+            format!("{name}: smooth taper CL_alpha, default vs 2x finer, rel. change"),
             CONVERGENCE,
             0.0,
-            Absolute(1e-4),
-            change(smooth_tapered, 2, Prepared::cl_alpha),
+            Absolute(smooth),
+            change(smooth_tapered, finer, |s| s.cl_alpha),
         ),
         Case::fixed(
-            format!("series: smooth taper CDi, N {DEFAULT_TERMS} vs 2N, rel. change"),
+            format!("{name}: smooth taper CDi, default vs 2x finer, rel. change"),
             CONVERGENCE,
             0.0,
-            Absolute(1e-4),
-            change(smooth_tapered, 2, |p| p.coefficients(5f64.to_radians()).cdi),
+            Absolute(smooth),
+            change(smooth_tapered, finer, |s| s.coefficients.cdi),
         ),
         Case::fixed(
-            format!("series: aileron Cl_roll, N {DEFAULT_TERMS} vs 4N, rel. change"),
+            format!("{name}: aileron Cl_roll, default vs 4x finer, rel. change"),
             CONVERGENCE,
             0.0,
-            Absolute(0.01),
-            change(aileron_wing, 4, |p| {
-                p.coefficients(5f64.to_radians()).cl_roll
-            }),
+            Absolute(control),
+            change(aileron_wing, finest, |s| s.coefficients.cl_roll),
         ),
     ]
 }

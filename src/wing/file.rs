@@ -49,21 +49,61 @@ pub enum ReadError {
         /// What the system said.
         source: std::io::Error,
     },
+    /// The file is larger than [`MAX_FILE_BYTES`]: no wing needs that much, and reading it
+    /// whole could exhaust memory (a device, a runaway file).
+    #[error(
+        "{}: cannot read: larger than the {} MiB limit for a wing file",
+        path.display(),
+        MAX_FILE_BYTES >> 20
+    )]
+    TooLarge {
+        /// The file.
+        path: PathBuf,
+    },
     /// The text is not a valid wing, located to the character.
     #[error(transparent)]
     Invalid(#[from] WingFileError),
 }
 
+/// The largest wing file read: 16 MiB, room for some 200,000 stations.
+pub const MAX_FILE_BYTES: u64 = 16 << 20;
+
 /// Reads and validates a wing file.
 ///
 /// # Errors
-/// [`ReadError::Unreadable`] when the file cannot be read, else the first problem in it.
+/// [`ReadError::Unreadable`] when the file cannot be read, [`ReadError::TooLarge`] past
+/// [`MAX_FILE_BYTES`], else the first problem in it.
 pub fn read(path: &Path) -> Result<Wing, ReadError> {
-    let text = std::fs::read_to_string(path).map_err(|source| ReadError::Unreadable {
+    let text = read_text(path)?;
+    Ok(parse(&text, path)?)
+}
+
+/// The file's text, at most [`MAX_FILE_BYTES`] of it (never more is read, so a device or a
+/// growing file cannot exhaust memory).
+///
+/// # Errors
+/// [`ReadError::Unreadable`] or [`ReadError::TooLarge`].
+pub fn read_text(path: &Path) -> Result<String, ReadError> {
+    use std::io::Read as _;
+    let unreadable = |source| ReadError::Unreadable {
         path: path.to_path_buf(),
         source,
-    })?;
-    Ok(parse(&text, path)?)
+    };
+    let mut bytes = Vec::new();
+    std::fs::File::open(path)
+        .and_then(|f| f.take(MAX_FILE_BYTES + 1).read_to_end(&mut bytes))
+        .map_err(unreadable)?;
+    if bytes.len() as u64 > MAX_FILE_BYTES {
+        return Err(ReadError::TooLarge {
+            path: path.to_path_buf(),
+        });
+    }
+    String::from_utf8(bytes).map_err(|_| {
+        unreadable(std::io::Error::new(
+            std::io::ErrorKind::InvalidData,
+            "stream did not contain valid UTF-8",
+        ))
+    })
 }
 
 /// Parses and validates wing-file text; `path` is used in error messages and for the default
@@ -175,6 +215,7 @@ struct RawCondition {
     cl: Option<Spanned<f64>>,
     speed: Option<Spanned<f64>>,
     altitude: Option<Spanned<f64>>,
+    roll_rate: Option<Spanned<f64>>,
 }
 
 /// Takes a value and records where it stood.
@@ -306,6 +347,7 @@ fn condition(spans: &mut Spans, raw: Spanned<RawCondition>) -> Condition {
         target_cl: c.cl.map(|v| take(spans, &place, "cl", v)),
         speed: take_or(spans, &place, "speed", c.speed, d.speed),
         altitude: take_or(spans, &place, "altitude", c.altitude, d.altitude),
+        roll_rate: take_or(spans, &place, "roll_rate", c.roll_rate, d.roll_rate),
     }
 }
 
@@ -361,6 +403,9 @@ pub fn to_toml(wing: &Wing) -> String {
     }
     let _ = writeln!(out, "speed = {}", num(c.speed));
     let _ = writeln!(out, "altitude = {}", num(c.altitude));
+    if c.roll_rate != 0.0 {
+        let _ = writeln!(out, "roll_rate = {}", num(c.roll_rate));
+    }
     out
 }
 

@@ -100,6 +100,9 @@ pub struct Condition {
     pub speed: f64,
     /// ISA geopotential altitude, m.
     pub altitude: f64,
+    /// Steady roll rate pb/2V, dimensionless, right wing down positive: the local angle of
+    /// attack at y rises by roll_rate * 2y/b.
+    pub roll_rate: f64,
 }
 
 impl Default for Condition {
@@ -109,6 +112,7 @@ impl Default for Condition {
             target_cl: None,
             speed: 20.0,
             altitude: 0.0,
+            roll_rate: 0.0,
         }
     }
 }
@@ -138,6 +142,17 @@ pub(crate) fn bracket<T>(items: &[T], y_of: impl Fn(&T) -> f64, y: f64) -> (usiz
 }
 
 impl Section {
+    /// Section lift coefficient and its slope dcl/dalpha (per radian) at effective angle of
+    /// attack `alpha_eff` (radians, of the section's chord line, control shifts included):
+    /// the linear section cl = a0 (alpha_eff - alpha_L0) (thin-airfoil theory; Anderson,
+    /// *Fundamentals of Aerodynamics*, sec. 4.8).
+    #[must_use]
+    pub fn lift(&self, alpha_eff: f64) -> (f64, f64) {
+        let a0 = self.airfoil.lift_slope;
+        let zero_lift = self.airfoil.alpha_zero_lift_deg.to_radians();
+        (a0 * (alpha_eff - zero_lift), a0)
+    }
+
     /// Linear blend, fraction `t` of the way from `self` to `other` (the rule between stations).
     #[must_use]
     pub fn lerp(&self, other: &Self, t: f64) -> Self {

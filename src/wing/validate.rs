@@ -5,6 +5,10 @@ use std::fmt;
 
 use super::{Geometry, Wing};
 
+/// The largest angle of attack (either sign), degrees, in a file, a flag or a solution: past
+/// it the angle no longer describes a wing in forward flight.
+pub const MAX_ALPHA_DEG: f64 = 90.0;
+
 /// Where in a wing a problem sits.
 #[derive(Debug, Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
 pub enum Place {
@@ -283,6 +287,14 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
     if let Some(cl) = c.target_cl {
         finite(&mut out, &place, "cl", cl);
     }
+    if finite(&mut out, &place, "roll_rate", c.roll_rate) && c.roll_rate.abs() > 1.0 {
+        // pb/2V is the tip's helix angle in radians: past 1 the tip meets the air at over 45 deg.
+        out.push(problem(
+            place.clone(),
+            "roll_rate",
+            format!("must be within -1 to 1 (pb/2V; got {})", c.roll_rate),
+        ));
+    }
     if finite(&mut out, &place, "speed", c.speed) && c.speed <= 0.0 {
         out.push(problem(
             place.clone(),
@@ -308,7 +320,8 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
     out
 }
 
-/// Where lifting-line theory is weak for this wing (not errors).
+/// Where lifting-line theory is weak for this wing, whatever the method (not errors; each
+/// method adds its own).
 #[must_use]
 pub fn warnings(wing: &Wing, geometry: &Geometry) -> Vec<String> {
     let mut out = Vec::new();
@@ -316,18 +329,6 @@ pub fn warnings(wing: &Wing, geometry: &Geometry) -> Vec<String> {
         out.push(format!(
             "aspect ratio {:.2} is below 4: lifting-line theory overestimates the lift slope",
             geometry.aspect_ratio
-        ));
-    }
-    if geometry.max_sweep_deg > 20.0 {
-        out.push(format!(
-            "quarter-chord sweep up to {:.1} deg: this solver ignores sweep, results are optimistic",
-            geometry.max_sweep_deg
-        ));
-    }
-    if geometry.max_dihedral_deg > 15.0 {
-        out.push(format!(
-            "dihedral up to {:.1} deg: this solver treats the wing as flat",
-            geometry.max_dihedral_deg
         ));
     }
     if !wing.symmetric && geometry.y_mid.abs() > 0.01 * geometry.span {

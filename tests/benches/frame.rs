@@ -6,7 +6,7 @@ use std::collections::BTreeMap;
 
 use criterion::{criterion_group, criterion_main, BenchmarkId, Criterion};
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use gammaline::solver::Options;
+use gammaline::solver::Method;
 use gammaline::tui::app::{App, Settings};
 use gammaline::tui::doc::Doc;
 use gammaline::tui::theme::{Theme, UNICODE};
@@ -45,13 +45,13 @@ fn wing(n: usize) -> Wing {
 fn app(n: usize) -> App {
     let dir = std::env::temp_dir();
     let settings = Settings {
-        options: Options::default(),
+        method: Method::default(),
         notebook: dir.join("gammaline-bench-notebook.txt"),
         session_dir: None,
         in_tmux: false,
         examples: None,
     };
-    let doc = Doc::new(wing(n), None, Options::default());
+    let doc = Doc::new(wing(n), None, Method::default());
     let mut app = App::new(vec![doc], Theme::colour(UNICODE), settings);
     // Put the cursor on the chord of a station in the middle of the table.
     for _ in 0..n / 2 {

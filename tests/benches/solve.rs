@@ -7,7 +7,7 @@ mod common;
 use std::hint::black_box;
 
 use criterion::{criterion_group, criterion_main, BenchmarkId, Criterion};
-use gammaline::solver::{prepare, Options, DEFAULT_TERMS};
+use gammaline::solver::series::{prepare, Options, DEFAULT_TERMS};
 use gammaline::wing::Wing;
 
 /// A 10-station tapered wing (AR about 9, taper 0.4) with washout, a second airfoil blended in

@@ -5,7 +5,7 @@
 use std::path::{Path, PathBuf};
 
 use crossterm::event::{KeyCode, KeyEvent, KeyModifiers};
-use gammaline::solver::Options;
+use gammaline::solver::Method;
 use gammaline::tui::app::{App, Settings};
 use gammaline::tui::doc::Doc;
 use gammaline::tui::theme::{Theme, UNICODE};
@@ -78,7 +78,7 @@ pub fn write_tapered(dir: &Path) -> PathBuf {
 /// Settings that keep everything inside `dir`.
 pub fn settings(dir: &Path) -> Settings {
     Settings {
-        options: Options::default(),
+        method: Method::default(),
         notebook: dir.join("notebook.txt"),
         session_dir: Some(dir.join("session")),
         in_tmux: false,
@@ -89,13 +89,13 @@ pub fn settings(dir: &Path) -> Settings {
 /// An app over the fixture (read from a file in `dir`), monochrome Unicode theme.
 pub fn app(dir: &Path) -> App {
     let path = write_tapered(dir);
-    let doc = Doc::new(tapered(), Some(path), Options::default());
+    let doc = Doc::new(tapered(), Some(path), Method::default());
     App::new(vec![doc], Theme::monochrome(UNICODE), settings(dir))
 }
 
 /// An app over any wing without a file.
 pub fn app_with(wing: Wing, theme: Theme, dir: &Path) -> App {
-    let doc = Doc::new(wing, None, Options::default());
+    let doc = Doc::new(wing, None, Method::default());
     App::new(vec![doc], theme, settings(dir))
 }
 

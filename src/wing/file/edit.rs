@@ -296,7 +296,8 @@ fn rename(table: &mut Table, from: &str, to: &str) {
     }
 }
 
-/// `[condition]`: alpha or cl (a switch renames the one key to the other), speed, altitude.
+/// `[condition]`: alpha or cl (a switch renames the one key to the other), speed, altitude,
+/// roll rate.
 fn condition(root: &mut Table, old: &Condition, new: &Condition) -> Option<()> {
     if old == new {
         return Some(());
@@ -319,6 +320,7 @@ fn condition(root: &mut Table, old: &Condition, new: &Condition) -> Option<()> {
     }
     put(t, "speed", Some(old.speed), new.speed);
     put(t, "altitude", Some(old.altitude), new.altitude);
+    put(t, "roll_rate", Some(old.roll_rate), new.roll_rate);
     Some(())
 }
 

@@ -11,7 +11,7 @@
 
 use nalgebra::{DMatrix, DVector};
 
-use super::controls::ControlSpan;
+use crate::solver::controls::ControlSpan;
 
 /// The spanwise map y(theta) of a wing whose tips are at `y_mid -+ half_span`.
 #[derive(Debug, Clone, Copy, PartialEq)]

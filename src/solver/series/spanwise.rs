@@ -3,29 +3,18 @@
 //! Every local value is linear in alpha (the A_n are), so each output point is evaluated once
 //! per geometry as a value at zero alpha plus a slope, and a solve only combines the two.
 
-use super::controls::ControlSpan;
 use super::fourier::PairSums;
+use crate::solver::controls::ControlSpan;
+use crate::solver::solution::SpanPoint;
 use crate::wing::Section;
 
-/// Local values at one spanwise point.
-#[derive(Debug, Clone, Copy, PartialEq)]
-pub struct SpanPoint {
-    /// Position, m.
-    pub y: f64,
-    /// Chord, m.
-    pub chord: f64,
-    /// Section lift coefficient.
-    pub cl: f64,
-    /// Span load c*cl/c_mean, with c_mean = S/b.
-    pub span_load: f64,
-    /// Induced angle (downwash positive), degrees.
-    pub alpha_i_deg: f64,
-    /// Circulation, m^2/s.
-    pub gamma: f64,
-    /// Local section cl_max.
-    pub cl_max: f64,
-    /// cl / cl_max.
-    pub cl_ratio: f64,
+/// The zero-alpha inputs a pointed tip's limit needs besides its section.
+#[derive(Debug, Clone, Copy)]
+pub struct LocalInputs<'a> {
+    /// Both halves of every control.
+    pub controls: &'a [ControlSpan],
+    /// Steady roll rate pb/2V.
+    pub roll_rate: f64,
 }
 
 /// (value at zero alpha, value per radian of alpha).
@@ -76,28 +65,30 @@ impl LinearPoint {
 ///
 /// cl = 2 Gamma/(V c) = 4 b sum A_n sin(n theta) / c where the chord is non-zero; at a
 /// pointed tip the section's own lift curve gives the limit, cl = a0 alpha_eff with
-/// alpha_eff = alpha + twist - alpha_L0 + control shift - alpha_i from the lifting-line
+/// alpha_eff = alpha + twist - alpha_L0 + control shift + roll - alpha_i from the lifting-line
 /// equation (only the alpha and alpha_i terms belong to the slope).
 #[must_use]
 pub fn linear_point(
     (y, section): (f64, &Section),
     sum: &PairSums,
     (span, mean_chord): (f64, f64),
-    controls: &[ControlSpan],
+    inputs: LocalInputs,
 ) -> LinearPoint {
     let ccl = (4.0 * span * sum.load.0, 4.0 * span * sum.load.1);
     let cl = if section.chord > 1e-9 {
         (ccl.0 / section.chord, ccl.1 / section.chord)
     } else {
-        let shift: f64 = controls
+        let shift: f64 = inputs
+            .controls
             .iter()
             .filter(|c| (c.y_from..=c.y_to).contains(&y))
             .map(|c| c.alpha_increase)
             .sum();
         let zero_lift = section.airfoil.alpha_zero_lift_deg.to_radians();
         let a0 = section.airfoil.lift_slope;
+        let roll = inputs.roll_rate * 2.0 * y / span;
         (
-            a0 * (section.twist - zero_lift + shift - sum.induced.0),
+            a0 * (section.twist - zero_lift + shift + roll - sum.induced.0),
             a0 * (1.0 - sum.induced.1),
         )
     };
@@ -119,11 +110,11 @@ pub fn linear_points(
     sections: &[Section],
     sums: &[PairSums],
     scales: (f64, f64),
-    controls: &[ControlSpan],
+    inputs: LocalInputs,
 ) -> Vec<LinearPoint> {
     ys.iter()
         .zip(sections)
         .zip(sums)
-        .map(|((&y, section), sum)| linear_point((y, section), sum, scales, controls))
+        .map(|((&y, section), sum)| linear_point((y, section), sum, scales, inputs))
         .collect()
 }
