@@ -21,12 +21,12 @@ fn condition_text(s: &Solution, target_cl: Option<f64>) -> String {
     )
 }
 
-fn opt(value: Option<f64>, decimals: usize) -> String {
+pub(crate) fn opt(value: Option<f64>, decimals: usize) -> String {
     value.map_or_else(|| "n/a".to_string(), |v| fixed(v, decimals))
 }
 
 /// Full-precision numbers for CSV: `-0` written as `0`, a missing value as an empty field.
-fn csv_row(values: &[Option<f64>]) -> String {
+pub(crate) fn csv_row(values: &[Option<f64>]) -> String {
     let fields: Vec<String> = values
         .iter()
         .map(|v| v.map_or_else(String::new, |v| unsigned_zero(v).to_string()))
@@ -35,7 +35,7 @@ fn csv_row(values: &[Option<f64>]) -> String {
 }
 
 /// Every `-0.0` in a JSON document written as `0.0`.
-fn unsigned_zeros(value: &mut Value) {
+pub(crate) fn unsigned_zeros(value: &mut Value) {
     match value {
         Value::Number(n) if n.as_f64() == Some(0.0) && n.is_f64() => *value = json!(0.0),
         Value::Array(items) => items.iter_mut().for_each(unsigned_zeros),

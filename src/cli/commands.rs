@@ -31,16 +31,16 @@ pub(super) fn say(label: &str, message: &str) {
 }
 
 /// A path as printed in messages.
-fn shown(path: &Path) -> String {
+pub(super) fn shown(path: &Path) -> String {
     text::inert(&path.display().to_string())
 }
 
 /// Reads a wing.
-fn load(path: &Path) -> Result<Wing, String> {
+pub(super) fn load(path: &Path) -> Result<Wing, String> {
     file::read(path).map_err(|e| e.to_string())
 }
 
-fn method(args: &ConditionArgs) -> Method {
+pub(super) fn method(args: &ConditionArgs) -> Method {
     Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS))
 }
 
@@ -56,7 +56,11 @@ fn prepare(
     solver::prepare(&wing, method(args)).map_err(|e| format!("{}: {e}", shown(path)))
 }
 
-fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
+pub(super) fn condition(
+    path: &Path,
+    wing: &Wing,
+    args: &ConditionArgs,
+) -> Result<Condition, String> {
     let mut c = wing.condition;
     if let Some(v) = args.speed {
         c.speed = v;
@@ -73,7 +77,7 @@ fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition
     }
 }
 
-fn warn(path: &Path, warnings: &[String]) {
+pub(super) fn warn(path: &Path, warnings: &[String]) {
     for w in warnings {
         say("warning", &format!("{}: {w}", path.display()));
     }
