@@ -12,6 +12,7 @@
 pub mod atmosphere;
 pub mod cli;
 pub mod design;
+pub mod fsio;
 pub mod report;
 pub mod report_design;
 pub mod session;

@@ -34,6 +34,17 @@ pub enum Mode {
     Confirm,
 }
 
+impl SessionState {
+    /// Why the session does not keep unsaved work (`None`: it does).
+    #[must_use]
+    pub fn why_not(&self) -> Option<&str> {
+        match self {
+            Self::Kept => None,
+            Self::NotKept(why) | Self::Shared(why) => Some(why),
+        }
+    }
+}
+
 impl Mode {
     /// The key-table mode.
     #[must_use]
@@ -110,6 +121,25 @@ pub struct App {
     pub session_changed: bool,
     /// The terminal's size, kept up to date by the event loop (scrolling needs it).
     pub size: Size,
+    /// Set when a save was refused because the file changed on disk: the next `s` (and only
+    /// the very next key) overwrites it.
+    pub overwrite_armed: bool,
+    /// Whether the session keeps unsaved work, and if not why.
+    pub session_state: SessionState,
+    /// The hold on the session folder while this workbench writes it.
+    pub session_lock: Option<crate::session::Lock>,
+}
+
+/// Whether the session keeps what is not saved to files.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
+pub enum SessionState {
+    /// The session is written (or will be at the next quiet moment).
+    #[default]
+    Kept,
+    /// The session is not written: unsaved edits exist only in memory. Says why.
+    NotKept(String),
+    /// Another workbench holds the session: this one reads it but never writes it. Says so.
+    Shared(String),
 }
 
 impl App {
@@ -133,6 +163,9 @@ impl App {
             quit: false,
             session_changed: false,
             size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
+            overwrite_armed: false,
+            session_state: SessionState::Kept,
+            session_lock: None,
         }
     }
 
@@ -168,6 +201,25 @@ impl App {
         };
     }
 
+    /// The quit question, and when the unsaved wings are not kept anywhere, what to do
+    /// instead (the edits exist only in memory).
+    #[must_use]
+    pub fn quit_question(&self) -> (String, Option<String>) {
+        let n = self.docs.iter().filter(|d| d.unsaved()).count();
+        match self.session_state.why_not() {
+            None => (
+                format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n"),
+                None,
+            ),
+            Some(why) => (
+                format!("{n} unsaved wing(s) exist only in memory, not in the session: quit? y/n"),
+                Some(inert(&format!(
+                    "n, then s saves or S saves as a new file; {why}"
+                ))),
+            ),
+        }
+    }
+
     /// Handles one key event: the key table first, then (when typing) the editor.
     pub fn handle_key(&mut self, event: KeyEvent) {
         if event.kind == KeyEventKind::Release {
@@ -190,7 +242,9 @@ impl App {
     /// Applies one action.
     pub fn update(&mut self, action: Action) {
         self.session_changed = true;
+        let overwrite = std::mem::take(&mut self.overwrite_armed) && action == Action::Save;
         match self.mode.kind() {
+            ModeKind::Normal if action == Action::Save => super::actions::save(self, overwrite),
             ModeKind::Normal => self.normal(action),
             ModeKind::Edit => match action {
                 Action::Commit => self.commit_edit(),
@@ -281,7 +335,7 @@ impl App {
             Action::Open => self.prompt(Purpose::Open, ""),
             Action::SaveAs => {
                 let start = self.doc().path.as_ref().map(|p| p.display().to_string());
-                self.prompt(Purpose::SaveAs, &start.unwrap_or_default());
+                self.ask_save_as(&start.unwrap_or_default(), None);
             }
             Action::Notebook => {
                 let start = self.settings.notebook.display().to_string();
@@ -289,7 +343,6 @@ impl App {
             }
             Action::Pin => self.pin(),
             Action::Copy => super::actions::copy(self),
-            Action::Save => super::actions::save(self),
             Action::Revert => super::actions::revert(self),
             Action::ToggleTarget => self.toggle_target(),
             Action::ToggleOffsets => {
@@ -299,12 +352,15 @@ impl App {
             Action::Help => self.mode = Mode::Help { scroll: 0 },
             Action::Quit => {
                 if self.docs.iter().any(Doc::unsaved) {
+                    // Write the session now, so the question can say truly whether it keeps
+                    // the unsaved wings.
+                    super::persist::save_session(self);
                     self.mode = Mode::Confirm;
                 } else {
                     self.quit = true;
                 }
             }
-            Action::Commit | Action::Cancel | Action::QuitNow => {}
+            Action::Save | Action::Commit | Action::Cancel | Action::QuitNow => {}
         }
     }
 
@@ -332,6 +388,19 @@ impl App {
     fn after_history(&mut self, ok: bool, done: &str, none: &str) {
         self.clamp_cursor();
         self.say(if ok { done } else { none }, !ok);
+    }
+
+    /// Opens the save-as prompt with `start`, showing `reason` (why the wing's own file is not
+    /// written) under it.
+    pub fn ask_save_as(&mut self, start: &str, reason: Option<&str>) {
+        self.prompt(Purpose::SaveAs, start);
+        if let Some(reason) = reason {
+            let reason = inert(reason);
+            self.say(&reason, true);
+            if let Mode::Edit(editor) = &mut self.mode {
+                editor.error = Some(reason);
+            }
+        }
     }
 
     fn prompt(&mut self, purpose: Purpose, start: &str) {
@@ -369,11 +438,8 @@ impl App {
             Purpose::Open => super::actions::open(self, Path::new(text.trim())),
             Purpose::SaveAs => {
                 let path = PathBuf::from(text.trim());
-                let asked = inert(&super::actions::replace_question(
-                    &super::actions::expand_home(&path),
-                ));
-                let confirmed = editor.error.as_deref() == Some(asked.as_str());
-                super::actions::save_as(self, path, confirmed)
+                let asked = editor.error.clone();
+                super::actions::save_as(self, path, asked.as_deref())
             }
             Purpose::Notebook => {
                 self.settings.notebook = PathBuf::from(text.trim());

@@ -472,7 +472,7 @@ pub const BINDINGS: &[Binding] = &[
         &[Confirm],
         &[k('y'), k('Y')],
         Action::QuitNow,
-        "quit; unsaved wings stay in the session",
+        "quit; unsaved wings stay only if the session was written",
         Some("quit"),
     ),
     bind(

@@ -15,7 +15,7 @@ use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
 mod edit;
 mod locate;
 
-pub use edit::edit_toml;
+pub use edit::{edit_toml, tidy, tidy_numbers};
 use locate::Locator;
 
 /// A wing file that cannot be used, located to the character.
