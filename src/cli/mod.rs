@@ -4,6 +4,7 @@
 mod commands;
 mod design;
 mod loads;
+mod refusal;
 mod verify;
 
 use std::path::PathBuf;
