@@ -1,8 +1,9 @@
 //! Glauert's sine-series solution of Prandtl's lifting-line equation, by collocation.
 //!
-//! [`prepare`] builds and factors the collocation system once per geometry; every angle of
-//! attack, target CL or sweep point after that is a back-substitution ([`Prepared::solve`],
-//! [`Prepared::sweep`]).
+//! [`prepare`] builds and factors the collocation system once per geometry and keeps two
+//! responses (per radian of alpha, and at zero alpha) with the spanwise integrals as
+//! polynomials in alpha; every angle of attack, target CL or sweep point after that is a
+//! combination of the two ([`Prepared::solve`], [`Prepared::sweep`]).
 
 pub mod fourier;
 pub mod integrals;
@@ -16,7 +17,9 @@ use super::solution::{
     self, Coefficients, FirstStall, Flight, MethodReport, Solution, SpanPoint, SweepPoint,
 };
 use super::SolveError;
+use crate::solver::moment::MomentFrame;
 use crate::wing::validate;
+use crate::wing::ReferenceValues;
 use crate::wing::{Condition, Geometry, Section, Sections, Wing};
 use fourier::SpanMap;
 use integrals::LoadIntegrals;
@@ -54,6 +57,9 @@ pub struct Prepared {
     station_points: Vec<spanwise::LinearPoint>,
     first_stall: Option<FirstStall>,
     warnings: Vec<String>,
+    /// Cm at zero alpha and per radian (linear: every section's cm is its constant `cm0`).
+    cm: (f64, f64),
+    reference: ReferenceValues,
 }
 
 /// Builds and factors the collocation system of a wing, with its section lift slopes
@@ -103,7 +109,13 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let sums = fourier::collocation_sums(pair.0, pair.1, at.system(wing.symmetric));
     let points = spanwise::linear_points(&at.ys, &at.sections, &sums, scales, inputs);
     let station_points = station_points(wing, &sections, map, pair, scales, inputs);
+    let frame = MomentFrame::of(wing, &geometry);
+    let cm_at = |alpha: f64| frame.cm(&points.iter().map(|p| p.at(alpha, 1.0)).collect::<Vec<_>>());
+    let cm_zero = cm_at(0.0);
+    let cm = (cm_zero, cm_at(1.0) - cm_zero);
     let mut prepared = Prepared {
+        cm,
+        reference: *frame.reference(),
         geometry,
         per_alpha: responses.per_alpha,
         at_zero: responses.at_zero,
@@ -341,11 +353,12 @@ impl Prepared {
             cn: cn_induced + cn_profile,
             cn_induced,
             cn_profile,
+            cm: self.cm.0 + alpha * self.cm.1,
         }
     }
 
-    /// Coefficients at each angle of attack (degrees): one back-substitution already done,
-    /// so each point is O(1).
+    /// Coefficients at each angle of attack (degrees): the integrals are polynomials in alpha
+    /// prepared once, so each point is O(1).
     #[must_use]
     pub fn sweep(&self, alphas_deg: &[f64]) -> Vec<Coefficients> {
         alphas_deg
@@ -404,8 +417,11 @@ impl Prepared {
         let g = &self.geometry;
         let v = condition.speed;
         let right_lift = self.integrals.right_lift.at(alpha);
-        let root_bending_per_q = self.integrals.right_moment.at(alpha);
-        let bending = (root_bending_per_q, self.integrals.left_moment.at(alpha));
+        let right_root_bending_per_q = self.integrals.right_moment.at(alpha);
+        let bending = (
+            right_root_bending_per_q,
+            self.integrals.left_moment.at(alpha),
+        );
         let flight = Flight::of(condition, g, &coefficients, bending);
         let spanwise: Vec<SpanPoint> = self.points.iter().map(|p| p.at(alpha, v)).collect();
         let stations = self.station_points.iter().map(|p| p.at(alpha, v)).collect();
@@ -418,11 +434,11 @@ impl Prepared {
             tau: solution::tau(cl_alpha, self.integrals.mean_lift_slope, g.aspect_ratio),
             geometry: *g,
             center_of_lift_y: if right_lift.abs() > 1e-12 {
-                root_bending_per_q / right_lift
+                right_root_bending_per_q / right_lift
             } else {
                 f64::NAN
             },
-            root_bending_per_q,
+            right_root_bending_per_q,
             first_stall: self.first_stall,
             spanwise,
             stations,
@@ -436,6 +452,7 @@ impl Prepared {
                 extras: vec![("fourier", self.fourier_at(alpha))],
             },
             warnings,
+            reference: self.reference,
         }
     }
 
