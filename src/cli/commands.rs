@@ -3,7 +3,7 @@
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
 
-use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
+use super::{ConditionArgs, Format, MethodArg, SolveArgs, SweepArgs};
 use crate::report;
 use crate::solver::{self, FreeStream, Method, PreparedWing};
 use crate::text;
@@ -40,8 +40,22 @@ fn load(path: &Path) -> Result<Wing, String> {
     file::read(path).map_err(|e| e.to_string())
 }
 
-fn method(args: &ConditionArgs) -> Method {
-    Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS))
+/// The method the flags ask for; a resolution flag of the other method is refused.
+fn method(args: &ConditionArgs) -> Result<Method, String> {
+    match (args.method, args.terms, args.panels) {
+        (MethodArg::Series, terms, None) => {
+            Ok(Method::series(terms.unwrap_or(solver::DEFAULT_TERMS)))
+        }
+        (MethodArg::Vortex, None, panels) => {
+            Ok(Method::vortex(panels.unwrap_or(solver::DEFAULT_PANELS)))
+        }
+        (MethodArg::Series, _, Some(_)) => {
+            Err("--panels applies to --method vortex (the series takes --terms)".into())
+        }
+        (MethodArg::Vortex, Some(_), _) => {
+            Err("--terms applies to --method series (the vortex method takes --panels)".into())
+        }
+    }
 }
 
 /// Prepares `wing` at `condition` (which sets the Mach correction and the roll rate).
@@ -53,7 +67,7 @@ fn prepare(
 ) -> Result<PreparedWing, String> {
     let mut wing = wing.clone();
     wing.condition = *condition;
-    solver::prepare(&wing, method(args)).map_err(|e| format!("{}: {e}", shown(path)))
+    solver::prepare(&wing, method(args)?).map_err(|e| format!("{}: {e}", shown(path)))
 }
 
 fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
@@ -104,9 +118,11 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
         c.target_cl = Some(cl);
     }
     let prepared = prepare(path, &wing, &c, &args.condition)?;
-    let s = prepared
-        .solve(&c)
-        .map_err(|e| format!("{}: {e}", shown(path)))?;
+    let failed = |e: solver::SolveError| format!("{}: {e}", shown(path));
+    let mut s = prepared.solve(&c).map_err(failed)?;
+    if args.stall {
+        s.cl_max = Some(prepared.cl_max().map_err(failed)?);
+    }
     warn(path, &s.warnings);
     let out = match args.format {
         Format::Line => format!("{}\n", report::line(&wing, &s, c.target_cl)),

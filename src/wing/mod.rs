@@ -13,3 +13,5 @@ pub use fingerprint::fingerprint;
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};
 pub use sections::Sections;
+
+pub(crate) use model::bracket;
