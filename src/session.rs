@@ -4,9 +4,11 @@
 //!
 //! Nothing here touches the terminal; the workbench decides when to save (debounced).
 
-use std::fs::{self, File};
-use std::io::{self, Write};
+use std::fs::{self, File, OpenOptions};
+use std::io;
+use std::io::{Read as _, Write as _};
 use std::path::{Path, PathBuf};
+use std::sync::Arc;
 
 use serde::{Deserialize, Serialize};
 
@@ -35,6 +37,10 @@ pub struct SessionWing {
     pub path: Option<PathBuf>,
     /// The unsaved wing in the wing-file format, when it differs from the file.
     pub recovery: Option<String>,
+    /// SHA-256 (hex) of the file the unsaved edits were made on, so a later save can tell
+    /// whether the file changed since.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub base: Option<String>,
     /// Cursor position.
     pub cursor: CursorState,
 }
@@ -154,35 +160,60 @@ pub fn save(dir: &Path, session: &Session) -> io::Result<()> {
     write_atomic(&dir.join(FILE_NAME), text.as_bytes())
 }
 
-/// Replaces `path` with `bytes` so that a reader sees either the old or the new file, never
-/// a mix: write a temporary file in the same folder (a rename across file systems is not
-/// atomic), flush it to disk, rename it over the target, then flush the folder entry.
-///
-/// # Errors
-/// When any step fails; the temporary file is removed and the target left untouched.
-pub fn write_atomic(path: &Path, bytes: &[u8]) -> io::Result<()> {
-    let folder = match path.parent() {
-        Some(p) if !p.as_os_str().is_empty() => p.to_path_buf(),
-        _ => PathBuf::from("."),
+/// Atomic replacement, kept here for callers that know it by this name.
+pub use crate::fsio::write_atomic;
+
+/// File name of the lock beside the session.
+pub const LOCK_NAME: &str = "session.lock";
+
+/// A hold on a session folder: while any clone of it lives, no other workbench writes the
+/// session there. The system lets go of it when the process ends, however it ends.
+#[derive(Debug, Clone)]
+pub struct Lock {
+    _file: Arc<File>,
+}
+
+/// What came of asking for a session folder.
+#[derive(Debug, Clone)]
+pub enum Claim {
+    /// This workbench may write the session.
+    Held(Lock),
+    /// Another workbench holds it (its process id, when it wrote one).
+    Taken(Option<u32>),
+    /// No lock could be taken (the folder cannot be written); writes will say why.
+    Unavailable(String),
+}
+
+/// Takes the session folder's lock without waiting, creating the folder if needed.
+#[must_use]
+pub fn claim(dir: &Path) -> Claim {
+    let path = dir.join(LOCK_NAME);
+    let opened = fs::create_dir_all(dir).and_then(|()| {
+        OpenOptions::new()
+            .read(true)
+            .write(true)
+            .create(true)
+            .truncate(false)
+            .open(&path)
+    });
+    let mut file = match opened {
+        Ok(f) => f,
+        Err(e) => return Claim::Unavailable(format!("{}: {e}", path.display())),
     };
-    let name = path
-        .file_name()
-        .map_or_else(|| "file".into(), |n| n.to_string_lossy().into_owned());
-    let temp = folder.join(format!(".{name}.tmp-{}", std::process::id()));
-    let result = (|| {
-        let mut file = File::create(&temp)?;
-        file.write_all(bytes)?;
-        file.sync_all()?;
-        drop(file);
-        fs::rename(&temp, path)
-    })();
-    if result.is_err() {
-        let _ = fs::remove_file(&temp);
+    match file.try_lock() {
+        Ok(()) => {
+            // The holder's process id, so a second workbench can say who has the session.
+            let _ = file.set_len(0);
+            let _ = write!(file, "{}", std::process::id());
+            Claim::Held(Lock {
+                _file: Arc::new(file),
+            })
+        }
+        Err(fs::TryLockError::WouldBlock) => {
+            let mut text = String::new();
+            let _ = file.read_to_string(&mut text);
+            Claim::Taken(text.trim().parse().ok())
+        }
+        Err(fs::TryLockError::Error(e)) => Claim::Unavailable(format!("{}: {e}", path.display())),
     }
-    result?;
-    // Make the rename itself durable; not every platform can open a folder, so best effort.
-    if let Ok(dir) = File::open(&folder) {
-        let _ = dir.sync_all();
-    }
-    Ok(())
 }

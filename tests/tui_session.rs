@@ -78,6 +78,7 @@ fn an_unparsable_recovery_copy_is_kept_aside() {
         wings: vec![session::SessionWing {
             path: None,
             recovery: Some("name = [broken".into()),
+            base: None,
             cursor: Default::default(),
         }],
         ..Session::default()

@@ -3,17 +3,20 @@
 use std::io::Write as _;
 use std::path::{Path, PathBuf};
 
+use super::refusal::{self, Overrides};
 use super::{ConditionArgs, Format, MethodArg, SolveArgs, SweepArgs};
 use crate::report;
-use crate::solver::{self, FreeStream, Method, PreparedWing};
+use crate::report_design;
+use crate::solver::{self, FreeStream, Method, PreparedWing, SolveError};
 use crate::text;
+use crate::wing::file::{self, Origin};
 use crate::wing::validate::MAX_ALPHA_DEG;
-use crate::wing::{file, validate, Condition, Geometry, Wing};
+use crate::wing::{validate, Condition, Geometry, Wing};
 
 /// Writes to stdout; a closed pipe (`| head`) ends the output quietly instead of failing.
 /// Every report passes through here made inert (JSON escaped instead), so no text from a file
 /// can reach the terminal as an escape sequence.
-fn emit(text: &str, format: Format) -> Result<(), String> {
+pub(super) fn emit(text: &str, format: Format) -> Result<(), String> {
     let safe = match format {
         Format::Json => text::json_escaped(text),
         Format::Line | Format::Table | Format::Csv => text::inert_lines(text),
@@ -31,46 +34,57 @@ pub(super) fn say(label: &str, message: &str) {
 }
 
 /// A path as printed in messages.
-fn shown(path: &Path) -> String {
+pub(super) fn shown(path: &Path) -> String {
     text::inert(&path.display().to_string())
 }
 
 /// Reads a wing.
-fn load(path: &Path) -> Result<Wing, String> {
+pub(super) fn load(path: &Path) -> Result<Wing, String> {
     file::read(path).map_err(|e| e.to_string())
 }
 
-/// The method the flags ask for; a resolution flag of the other method is refused.
-fn method(args: &ConditionArgs) -> Result<Method, String> {
+/// Reads a wing, keeping where its values stood for locating later refusals.
+fn load_with_origin(path: &Path) -> Result<(Wing, Origin), String> {
+    file::read_with_origin(path).map_err(|e| e.to_string())
+}
+
+/// The method the flags ask for (see [`method_flags`] for a resolution flag of the other one).
+pub(super) fn method(args: &ConditionArgs) -> Method {
+    match args.method {
+        MethodArg::Series => Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS)),
+        MethodArg::Vortex => Method::vortex(args.panels.unwrap_or(solver::DEFAULT_PANELS)),
+    }
+}
+
+/// Refuses a resolution flag that belongs to the other method.
+pub(super) fn method_flags(args: &ConditionArgs) -> Result<(), String> {
     match (args.method, args.terms, args.panels) {
-        (MethodArg::Series, terms, None) => {
-            Ok(Method::series(terms.unwrap_or(solver::DEFAULT_TERMS)))
-        }
-        (MethodArg::Vortex, None, panels) => {
-            Ok(Method::vortex(panels.unwrap_or(solver::DEFAULT_PANELS)))
-        }
         (MethodArg::Series, _, Some(_)) => {
             Err("--panels applies to --method vortex (the series takes --terms)".into())
         }
         (MethodArg::Vortex, Some(_), _) => {
             Err("--terms applies to --method series (the vortex method takes --panels)".into())
         }
+        _ => Ok(()),
     }
 }
 
 /// Prepares `wing` at `condition` (which sets the Mach correction and the roll rate).
 fn prepare(
-    path: &Path,
     wing: &Wing,
     condition: &Condition,
     args: &ConditionArgs,
-) -> Result<PreparedWing, String> {
+) -> Result<PreparedWing, SolveError> {
     let mut wing = wing.clone();
     wing.condition = *condition;
-    solver::prepare(&wing, method(args)?).map_err(|e| format!("{}: {e}", shown(path)))
+    solver::prepare(&wing, method(args))
 }
 
-fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition, String> {
+pub(super) fn condition(
+    path: &Path,
+    wing: &Wing,
+    args: &ConditionArgs,
+) -> Result<Condition, String> {
     let mut c = wing.condition;
     if let Some(v) = args.speed {
         c.speed = v;
@@ -87,7 +101,7 @@ fn condition(path: &Path, wing: &Wing, args: &ConditionArgs) -> Result<Condition
     }
 }
 
-fn warn(path: &Path, warnings: &[String]) {
+pub(super) fn warn(path: &Path, warnings: &[String]) {
     for w in warnings {
         say("warning", &format!("{}: {w}", path.display()));
     }
@@ -108,7 +122,7 @@ pub(super) fn solve(args: &SolveArgs) -> Result<(), String> {
 }
 
 fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
-    let wing = load(path)?;
+    let (wing, origin) = load_with_origin(path)?;
     let mut c = condition(path, &wing, &args.condition)?;
     if let Some(alpha) = args.alpha {
         c.alpha_deg = alpha;
@@ -117,17 +131,36 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
     if let Some(cl) = args.cl {
         c.target_cl = Some(cl);
     }
-    let prepared = prepare(path, &wing, &c, &args.condition)?;
-    let failed = |e: solver::SolveError| format!("{}: {e}", shown(path));
-    let mut s = prepared.solve(&c).map_err(failed)?;
+    let flags = Overrides {
+        alpha: args.alpha.is_some(),
+        cl: args.cl.is_some(),
+        speed: args.condition.speed.is_some(),
+        altitude: args.condition.altitude.is_some(),
+    };
+    method_flags(&args.condition)?;
+    let refused = |e: SolveError| refusal::refusal(path, &origin, &e, flags);
+    let prepared = prepare(&wing, &c, &args.condition).map_err(refused)?;
+    let mut s = prepared.solve(&c).map_err(refused)?;
     if args.stall {
-        s.cl_max = Some(prepared.cl_max().map_err(failed)?);
+        s.cl_max = Some(prepared.cl_max().map_err(refused)?);
     }
+    refusal::finite(&origin, &s)?;
     warn(path, &s.warnings);
+    let roll = super::design::roll_of(path, &wing, &c, &args.condition)?;
     let out = match args.format {
-        Format::Line => format!("{}\n", report::line(&wing, &s, c.target_cl)),
-        Format::Table => report::table(&wing, &s, c.target_cl),
-        Format::Json => format!("{}\n", report::json(&wing, &s, c.target_cl)),
+        Format::Line => format!(
+            "{}{}\n",
+            report::line(&wing, &s, c.target_cl),
+            report_design::roll_line(roll.as_ref())
+        ),
+        Format::Table => {
+            report_design::with_roll_table(&report::table(&wing, &s, c.target_cl), roll.as_ref())
+        }
+        Format::Json => {
+            let mut json = report::json(&wing, &s, c.target_cl);
+            report_design::add_roll_json(&mut json, roll.as_ref());
+            format!("{json}\n")
+        }
         Format::Csv => report::csv(&s),
     };
     emit(&out, args.format)
@@ -136,9 +169,16 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
 /// `gammaline sweep`.
 pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
     let count = sweep_points(args.from, args.to, args.step)?;
-    let wing = load(&args.file)?;
+    method_flags(&args.condition)?;
+    let (wing, origin) = load_with_origin(&args.file)?;
     let c = condition(&args.file, &wing, &args.condition)?;
-    let prepared = prepare(&args.file, &wing, &c, &args.condition)?;
+    let flags = Overrides {
+        speed: args.condition.speed.is_some(),
+        altitude: args.condition.altitude.is_some(),
+        ..Overrides::default()
+    };
+    let prepared = prepare(&wing, &c, &args.condition)
+        .map_err(|e| refusal::refusal(&args.file, &origin, &e, flags))?;
     warn(&args.file, prepared.warnings());
     let alphas: Vec<f64> = (0..count)
         .map(|i| args.from + i as f64 * args.step)
@@ -200,11 +240,22 @@ fn sweep_points(from: f64, to: f64, step: f64) -> Result<usize, String> {
     Ok(steps as usize + 1)
 }
 
-/// `gammaline check`: validates every file; fails if any is bad.
+/// The wing, when `solve` would solve it at its own condition with the default method;
+/// else `solve`'s refusal, located in the file.
+fn solvable(path: &Path, wing: Wing, origin: &Origin) -> Result<Wing, String> {
+    let none = Overrides::default();
+    let s = solver::solve(&wing, &wing.condition, Method::default())
+        .map_err(|e| refusal::refusal(path, origin, &e, none))?;
+    refusal::finite(origin, &s)?;
+    Ok(wing)
+}
+
+/// `gammaline check`: validates every file and solves it at its own condition; fails if
+/// any is bad.
 pub(super) fn check(files: &[PathBuf]) -> Result<(), String> {
     let mut errors = Vec::new();
     for path in files {
-        match load(path) {
+        match load_with_origin(path).and_then(|(wing, origin)| solvable(path, wing, &origin)) {
             Ok(wing) => {
                 let g = Geometry::of(&wing);
                 let line = report::geometry_line(path, &wing, &g);

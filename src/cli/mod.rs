@@ -2,6 +2,9 @@
 //! A thin shell over the core: parse flags, read files, call the solver, print a report.
 
 mod commands;
+mod design;
+mod loads;
+mod refusal;
 
 use std::path::PathBuf;
 use std::process::ExitCode;
@@ -39,6 +42,10 @@ enum Command {
     /// Solve one wing over a range of angles of attack (a lift and drag polar), at most
     /// 100000 points.
     Sweep(SweepArgs),
+    /// Design the twist for a spanwise loading at a lift coefficient; writes a new wing file.
+    Design(design::DesignArgs),
+    /// Shear force and bending moment along the span at a load factor.
+    Loads(loads::LoadsArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
         /// Wing files (TOML).
@@ -165,6 +172,8 @@ pub fn run() -> ExitCode {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
+        Some(Command::Design(args)) => design::run(&args),
+        Some(Command::Loads(args)) => loads::run(&args),
         Some(Command::Open { files }) => {
             return workbench(files, cli.session, cli.ascii, cli.notebook)
         }

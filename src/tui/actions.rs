@@ -5,8 +5,9 @@ use std::path::{Path, PathBuf};
 use super::app::App;
 use super::clipboard;
 use super::doc::Doc;
+use crate::fsio::{self, Stamp, WriteError};
 use crate::report;
-use crate::session::write_atomic;
+use crate::text::inert;
 use crate::wing::file;
 
 /// Opens a wing file (or switches to it when it is already open).
@@ -18,12 +19,8 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
         return Err("type a path to a wing file".into());
     }
     let path = &expand_home(path);
-    let wing = read_wing(path)?;
-    app.add_doc(Doc::new(
-        wing,
-        Some(path.to_path_buf()),
-        app.settings.method,
-    ));
+    let doc = Doc::read(path, app.settings.method)?;
+    app.add_doc(doc);
     app.clamp_cursor();
     let msg = format!("opened {}", path.display());
     app.say(&msg, false);
@@ -36,34 +33,101 @@ pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
 /// # Errors
 /// One line naming the path and what is wrong.
 pub fn read_wing(path: &Path) -> Result<crate::wing::Wing, String> {
-    if path.is_dir() {
-        return Err(format!(
-            "{} is a folder: give a wing file's path (w lists the wings nearby)",
-            path.display()
-        ));
-    }
-    if !path.exists() {
-        return Err(format!("no such file: {}", path.display()));
-    }
-    file::read(path).map_err(|e| e.to_string())
+    super::doc::read_stamped(path).map(|(wing, _)| wing)
 }
 
-/// Saves the current wing to its file; a wing without a file asks for one.
-pub fn save(app: &mut App) {
-    let Some(path) = app.doc().path.clone() else {
-        app.update(super::keymap::Action::SaveAs);
-        return;
+/// What `s` does with the current wing.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub enum SavePlan {
+    /// Write it to its file.
+    Write(PathBuf),
+    /// Ask for another file, opening the prompt with `start` and saying `reason`.
+    AskSaveAs {
+        /// The prompt's first text.
+        start: String,
+        /// Why the wing's own file is not written (`None`: it has none).
+        reason: Option<String>,
+    },
+    /// Refuse for now (the file changed on disk); `s` again overwrites.
+    Changed(PathBuf),
+}
+
+/// Decides what `s` does: a wing without a file, a bundled example or a read-only file goes
+/// to save-as; a file changed on disk since it was read is not written without a second `s`.
+#[must_use]
+pub fn plan_save(app: &App, overwrite_changed: bool) -> SavePlan {
+    let doc = app.doc();
+    let Some(path) = doc.path.clone() else {
+        return SavePlan::AskSaveAs {
+            start: String::new(),
+            reason: None,
+        };
     };
-    if let Err(reason) = write(app, &path) {
-        app.say(&reason, true);
+    if is_example(app, &path) {
+        return SavePlan::AskSaveAs {
+            start: copy_name(&path),
+            reason: Some(format!(
+                "{} is a bundled example and is never overwritten: save your wing as a new file",
+                path.display()
+            )),
+        };
+    }
+    if is_read_only(&path) {
+        return SavePlan::AskSaveAs {
+            start: path.display().to_string(),
+            reason: Some(format!(
+                "{} is read-only: save as another file (Enter on its own path asks to overwrite it)",
+                path.display()
+            )),
+        };
+    }
+    let changed = match &doc.disk {
+        Some(stamp) => !stamp.still_matches(&path),
+        // Never read (an old session's recovery copy): a file there is someone else's.
+        None => path.exists(),
+    };
+    if changed && !overwrite_changed {
+        return SavePlan::Changed(path);
+    }
+    SavePlan::Write(path)
+}
+
+/// Saves the current wing to its file, or asks where (see [`plan_save`]). `overwrite_changed`
+/// is true for the `s` that follows a warning that the file changed on disk.
+pub fn save(app: &mut App, overwrite_changed: bool) {
+    match plan_save(app, overwrite_changed) {
+        SavePlan::Write(path) => {
+            if let Err(e) = write(app, &path, false) {
+                // A folder or file the system will not let us write: ask for another place.
+                let reason = format!("{e}: save as another file");
+                let start = path.display().to_string();
+                app.ask_save_as(&start, Some(&reason));
+            }
+        }
+        SavePlan::AskSaveAs { start, reason } => app.ask_save_as(&start, reason.as_deref()),
+        SavePlan::Changed(path) => {
+            app.say(&changed_message(&path), true);
+            app.overwrite_armed = true;
+        }
     }
 }
 
-/// Saves the current wing to `path` and makes that its file.
+/// What a save says when the file changed on disk since it was read, and what can be done.
+#[must_use]
+pub fn changed_message(path: &Path) -> String {
+    format!(
+        "{} changed on disk since it was read: s again overwrites it (those changes lost), \
+         R reloads it (yours lost; u brings them back), S saves yours as another file",
+        path.display()
+    )
+}
+
+/// Saves the current wing to `path` and makes that its file. `asked` is the question the
+/// prompt showed last (Enter on the same path again answers it with yes).
 ///
 /// # Errors
-/// When the file cannot be written.
-pub fn save_as(app: &mut App, path: PathBuf, confirmed: bool) -> Result<(), String> {
+/// When the file cannot or may not be written, or a question must be asked first.
+pub fn save_as(app: &mut App, path: PathBuf, asked: Option<&str>) -> Result<(), String> {
     if path.as_os_str().is_empty() {
         return Err("type a path to save to".into());
     }
@@ -79,16 +143,34 @@ pub fn save_as(app: &mut App, path: PathBuf, confirmed: bool) -> Result<(), Stri
             ));
         }
     }
+    if is_example(app, &path) {
+        return Err(format!(
+            "{} is a bundled example and is never overwritten: give another name",
+            path.display()
+        ));
+    }
     let own = app
         .doc()
         .path
         .as_ref()
         .is_some_and(|p| super::app::same_file(p, &path));
-    if path.exists() && !own && !confirmed {
-        return Err(replace_question(&path));
+    let question = if is_read_only(&path) {
+        Some(read_only_question(&path))
+    } else if path.exists() && !own {
+        Some(replace_question(&path))
+    } else if own && plan_save(app, false) == SavePlan::Changed(path.clone()) {
+        Some(changed_message(&path))
+    } else {
+        None
+    };
+    if let Some(q) = question {
+        if asked != Some(inert(&q).as_str()) {
+            return Err(q);
+        }
     }
-    write(app, &path)?;
-    app.current_doc_mut().path = Some(path);
+    write(app, &path, true).map_err(|e| e.to_string())?;
+    let doc = app.current_doc_mut();
+    doc.path = Some(path);
     Ok(())
 }
 
@@ -99,6 +181,43 @@ pub fn replace_question(path: &Path) -> String {
         "{} exists: Enter again replaces it, Esc keeps it",
         path.display()
     )
+}
+
+/// What save-as says before replacing a read-only file; Enter again on it confirms.
+#[must_use]
+pub fn read_only_question(path: &Path) -> String {
+    format!(
+        "{} is read-only: Enter again overwrites it anyway (its permissions stay), Esc keeps it",
+        path.display()
+    )
+}
+
+/// Whether the file exists and its permissions forbid writing it.
+fn is_read_only(path: &Path) -> bool {
+    std::fs::metadata(path).is_ok_and(|m| m.permissions().readonly())
+}
+
+/// Whether `path` is one of the bundled example wings.
+#[must_use]
+pub fn is_example(app: &App, path: &Path) -> bool {
+    let Some(examples) = &app.settings.examples else {
+        return false;
+    };
+    let folder = |p: &Path| p.parent().map(Path::to_path_buf);
+    let file = path.canonicalize().ok();
+    let dir = examples.canonicalize().ok();
+    match (file, dir) {
+        (Some(f), Some(d)) => folder(&f).is_some_and(|f| f == d),
+        _ => false,
+    }
+}
+
+/// A new file name for a copy of `path`, in the current folder.
+fn copy_name(path: &Path) -> String {
+    let stem = path
+        .file_stem()
+        .map_or_else(|| "wing".into(), |s| s.to_string_lossy().into_owned());
+    format!("{stem}-variant.toml")
 }
 
 /// `~/...` made relative to the home folder, as a shell would.
@@ -113,25 +232,38 @@ pub fn expand_home(path: &Path) -> PathBuf {
 
 /// The text a wing is saved as: the file it came from edited in place (its comments and
 /// layout kept) when that file still reads, else the wing written afresh.
-fn saved_text(app: &App) -> String {
-    let doc = app.doc();
-    match doc
+fn saved_text(app: &App, wing: &crate::wing::Wing) -> String {
+    match app
+        .doc()
         .path
         .as_ref()
         .and_then(|p| std::fs::read_to_string(p).ok())
     {
-        Some(original) => file::edit_toml(&original, &doc.wing),
-        None => file::to_toml(&doc.wing),
+        Some(original) => file::edit_toml(&original, wing),
+        None => file::to_toml(wing),
     }
 }
 
-fn write(app: &mut App, path: &Path) -> Result<(), String> {
-    let text = saved_text(app);
-    write_atomic(path, text.as_bytes())
-        .map_err(|e| format!("cannot save {}: {e}", path.display()))?;
+fn write(app: &mut App, path: &Path, overwrite_read_only: bool) -> Result<(), WriteError> {
+    // Values a step of arithmetic left a hair off (0.5800000000000001) are saved as typed.
+    let wing = file::tidy_numbers(&app.doc().wing);
+    let text = saved_text(app, &wing);
+    let target = fsio::replace(path, text.as_bytes(), overwrite_read_only)?;
     let doc = app.current_doc_mut();
-    doc.saved = Some(doc.wing.clone());
-    let msg = format!("saved {}", path.display());
+    if doc.wing != wing {
+        doc.wing.clone_from(&wing);
+    }
+    doc.saved = Some(wing);
+    doc.disk = Some(Stamp::of(&target, text.as_bytes()));
+    let msg = if target == path {
+        format!("saved {}", path.display())
+    } else {
+        format!(
+            "saved {} (through the link, into {})",
+            path.display(),
+            target.display()
+        )
+    };
     app.say(&msg, false);
     Ok(())
 }
@@ -142,17 +274,18 @@ pub fn revert(app: &mut App) {
         app.say("this wing has no file to revert to", true);
         return;
     };
-    match file::read(&path) {
-        Ok(wing) => {
+    match super::doc::read_stamped(&path) {
+        Ok((wing, stamp)) => {
             let method = app.settings.method;
             let doc = app.current_doc_mut();
             doc.change(wing.clone(), method);
             doc.saved = Some(wing);
+            doc.disk = Some(stamp);
             app.clamp_cursor();
             let msg = format!("reverted to {} (u undoes the revert)", path.display());
             app.say(&msg, false);
         }
-        Err(e) => app.say(&e.to_string(), true),
+        Err(e) => app.say(&e, true),
     }
 }
 

@@ -34,6 +34,17 @@ pub enum Mode {
     Confirm,
 }
 
+impl SessionState {
+    /// Why the session does not keep unsaved work (`None`: it does).
+    #[must_use]
+    pub fn why_not(&self) -> Option<&str> {
+        match self {
+            Self::Kept => None,
+            Self::NotKept(why) | Self::Shared(why) => Some(why),
+        }
+    }
+}
+
 impl Mode {
     /// The key-table mode.
     #[must_use]
@@ -55,6 +66,10 @@ pub struct Status {
     pub text: String,
     /// Whether it reports a failure.
     pub error: bool,
+    /// Whether a frame showing it has been drawn (so the user has had the chance to read it).
+    pub shown: bool,
+    /// Counts messages said, so an action can tell whether it said anything.
+    pub serial: u64,
 }
 
 /// A pinned wing to compare against.
@@ -110,6 +125,25 @@ pub struct App {
     pub session_changed: bool,
     /// The terminal's size, kept up to date by the event loop (scrolling needs it).
     pub size: Size,
+    /// Set when a save was refused because the file changed on disk: the next `s` (and only
+    /// the very next key) overwrites it.
+    pub overwrite_armed: bool,
+    /// Whether the session keeps unsaved work, and if not why.
+    pub session_state: SessionState,
+    /// The hold on the session folder while this workbench writes it.
+    pub session_lock: Option<crate::session::Lock>,
+}
+
+/// Whether the session keeps what is not saved to files.
+#[derive(Debug, Clone, Default, PartialEq, Eq)]
+pub enum SessionState {
+    /// The session is written (or will be at the next quiet moment).
+    #[default]
+    Kept,
+    /// The session is not written: unsaved edits exist only in memory. Says why.
+    NotKept(String),
+    /// Another workbench holds the session: this one reads it but never writes it. Says so.
+    Shared(String),
 }
 
 impl App {
@@ -133,6 +167,9 @@ impl App {
             quit: false,
             session_changed: false,
             size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
+            overwrite_armed: false,
+            session_state: SessionState::Kept,
+            session_lock: None,
         }
     }
 
@@ -165,12 +202,55 @@ impl App {
         self.status = Status {
             text: inert(text),
             error,
+            shown: false,
+            serial: self.status.serial + 1,
         };
+    }
+
+    /// Called after each frame is drawn: the status message has been on screen.
+    pub fn status_drawn(&mut self) {
+        self.status.shown = true;
+    }
+
+    /// A message the user has seen no longer applies once the cursor, pane, wing or cell
+    /// changes without a new message: it is cleared, so the line never describes a cell
+    /// or a file state that is no longer the one in view.
+    fn clear_stale_status(&mut self, said_before: u64, action: Action) {
+        let stays = matches!(action, Action::Help | Action::Picker | Action::Quit);
+        if !stays && self.status.shown && self.status.serial == said_before {
+            self.status = Status {
+                serial: self.status.serial,
+                ..Status::default()
+            };
+        }
+    }
+
+    /// The quit question, and when the unsaved wings are not kept anywhere, what to do
+    /// instead (the edits exist only in memory).
+    #[must_use]
+    pub fn quit_question(&self) -> (String, Option<String>) {
+        let n = self.docs.iter().filter(|d| d.unsaved()).count();
+        match self.session_state.why_not() {
+            None => (
+                format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n"),
+                None,
+            ),
+            Some(why) => (
+                format!("{n} unsaved wing(s) exist only in memory, not in the session: quit? y/n"),
+                Some(inert(&format!(
+                    "n, then s saves or S saves as a new file; {why}"
+                ))),
+            ),
+        }
     }
 
     /// Handles one key event: the key table first, then (when typing) the editor.
     pub fn handle_key(&mut self, event: KeyEvent) {
         if event.kind == KeyEventKind::Release {
+            return;
+        }
+        if self.too_small() {
+            self.key_while_too_small(&event);
             return;
         }
         match keymap::lookup(self.mode.kind(), &event) {
@@ -187,14 +267,53 @@ impl App {
         }
     }
 
+    /// Whether the terminal is below the size the workbench lays out in (only "terminal too
+    /// small" is shown then).
+    #[must_use]
+    pub fn too_small(&self) -> bool {
+        self.size.width < super::view::MIN_WIDTH || self.size.height < super::view::MIN_HEIGHT
+    }
+
+    /// While nothing but "terminal too small" can be seen, a key must not change what the
+    /// user cannot see: only quit works, and its question is shown on that screen.
+    fn key_while_too_small(&mut self, event: &KeyEvent) {
+        let answer = keymap::lookup(ModeKind::Confirm, event);
+        match (&self.mode, keymap::lookup(ModeKind::Normal, event)) {
+            (Mode::Confirm, _) => {
+                if let Some(action) = answer {
+                    self.update(action);
+                }
+            }
+            (_, Some(Action::Quit)) => {
+                self.mode = Mode::Normal;
+                self.update(Action::Quit);
+            }
+            _ => {}
+        }
+    }
+
     /// Applies one action.
     pub fn update(&mut self, action: Action) {
         self.session_changed = true;
+        let overwrite = std::mem::take(&mut self.overwrite_armed) && action == Action::Save;
         match self.mode.kind() {
-            ModeKind::Normal => self.normal(action),
+            ModeKind::Normal => {
+                let said_before = self.status.serial;
+                if action == Action::Save {
+                    super::actions::save(self, overwrite);
+                } else {
+                    self.normal(action);
+                }
+                self.clear_stale_status(said_before, action);
+            }
             ModeKind::Edit => match action {
                 Action::Commit => self.commit_edit(),
                 Action::Cancel => self.mode = Mode::Normal,
+                Action::Complete => {
+                    if let Mode::Edit(editor) = &mut self.mode {
+                        editor.complete_path();
+                    }
+                }
                 _ => {}
             },
             ModeKind::Picker => self.picker(action),
@@ -281,7 +400,7 @@ impl App {
             Action::Open => self.prompt(Purpose::Open, ""),
             Action::SaveAs => {
                 let start = self.doc().path.as_ref().map(|p| p.display().to_string());
-                self.prompt(Purpose::SaveAs, &start.unwrap_or_default());
+                self.ask_save_as(&start.unwrap_or_default(), None);
             }
             Action::Notebook => {
                 let start = self.settings.notebook.display().to_string();
@@ -289,7 +408,6 @@ impl App {
             }
             Action::Pin => self.pin(),
             Action::Copy => super::actions::copy(self),
-            Action::Save => super::actions::save(self),
             Action::Revert => super::actions::revert(self),
             Action::ToggleTarget => self.toggle_target(),
             Action::ToggleOffsets => {
@@ -300,12 +418,16 @@ impl App {
             Action::Help => self.mode = Mode::Help { scroll: 0 },
             Action::Quit => {
                 if self.docs.iter().any(Doc::unsaved) {
+                    // Write the session now, so the question can say truly whether it keeps
+                    // the unsaved wings.
+                    super::persist::save_session(self);
                     self.mode = Mode::Confirm;
                 } else {
                     self.quit = true;
                 }
             }
-            Action::Commit | Action::Cancel | Action::QuitNow => {}
+            Action::Save | Action::Commit | Action::Cancel | Action::QuitNow | Action::Complete => {
+            }
         }
     }
 
@@ -335,6 +457,19 @@ impl App {
         self.say(if ok { done } else { none }, !ok);
     }
 
+    /// Opens the save-as prompt with `start`, showing `reason` (why the wing's own file is not
+    /// written) under it.
+    pub fn ask_save_as(&mut self, start: &str, reason: Option<&str>) {
+        self.prompt(Purpose::SaveAs, start);
+        if let Some(reason) = reason {
+            let reason = inert(reason);
+            self.say(&reason, true);
+            if let Mode::Edit(editor) = &mut self.mode {
+                editor.error = Some(reason);
+            }
+        }
+    }
+
     fn prompt(&mut self, purpose: Purpose, start: &str) {
         self.mode = Mode::Edit(Box::new(Editor::new(purpose, start, self.theme.text)));
     }
@@ -344,6 +479,10 @@ impl App {
         let Some(field) = self.field() else { return };
         if cells::rows(&self.doc().wing, sheet) == 0 {
             self.say("this pane is empty: press i to add a row", true);
+            return;
+        }
+        if cells::from_table(&self.doc().wing, row, field) {
+            self.say(&format!("{}: {}", field.key(), cells::TABLE_FIELD), true);
             return;
         }
         let text = cells::edit_text(&self.doc().wing, row, field);
@@ -370,11 +509,8 @@ impl App {
             Purpose::Open => super::actions::open(self, Path::new(text.trim())),
             Purpose::SaveAs => {
                 let path = PathBuf::from(text.trim());
-                let asked = inert(&super::actions::replace_question(
-                    &super::actions::expand_home(&path),
-                ));
-                let confirmed = editor.error.as_deref() == Some(asked.as_str());
-                super::actions::save_as(self, path, confirmed)
+                let asked = editor.error.clone();
+                super::actions::save_as(self, path, asked.as_deref())
             }
             Purpose::Notebook => {
                 self.settings.notebook = PathBuf::from(text.trim());
@@ -437,6 +573,10 @@ impl App {
         let Cursor { row, .. } = self.doc().cursor;
         let Some(field) = self.field() else { return };
         let mut wing = self.doc().wing.clone();
+        if cells::from_table(&wing, row, field) {
+            self.say(&format!("{}: {}", field.key(), cells::TABLE_FIELD), true);
+            return;
+        }
         if !cells::nudge(&mut wing, row, field, steps) {
             self.say(
                 &format!("{} cannot be nudged; press Enter to edit", field.key()),

@@ -1,7 +1,7 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
-use crate::text::fixed;
+use crate::text::fit_number;
 use crate::wing::{ControlKind, Wing};
 
 /// A pane of cells.
@@ -216,12 +216,14 @@ pub fn columns(wing: &Wing, sheet: Sheet, offsets: bool) -> Vec<Field> {
             Field::Cd2,
         ],
         Sheet::Controls => vec![
+            // Deflection next to the kind: the number a designer changes most, so it is
+            // in view at 80 columns.
             Field::Name,
             Field::Kind,
+            Field::Deflection,
             Field::YInner,
             Field::YOuter,
             Field::ChordFraction,
-            Field::Deflection,
             Field::Effectiveness,
         ],
         Sheet::Condition => {
@@ -307,12 +309,13 @@ pub fn display(wing: &Wing, row: usize, field: Field) -> String {
     let Some(v) = number(wing, row, field) else {
         return "-".into();
     };
-    match field {
-        Field::Cd0 | Field::Cd1 | Field::Cd2 => fixed(v, 4),
-        Field::Speed | Field::Altitude => fixed(v, 1),
-        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => fixed(v, 2),
-        _ => fixed(v, 3),
-    }
+    let decimals = match field {
+        Field::Cd0 | Field::Cd1 | Field::Cd2 => 4,
+        Field::Speed | Field::Altitude => 1,
+        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => 2,
+        _ => 3,
+    };
+    fit_number(v, decimals, usize::from(field.width()))
 }
 
 /// A cell's full-precision text, to start the editor with.
@@ -352,6 +355,9 @@ fn parse_number(input: &str) -> Result<f64, String> {
 /// # Errors
 /// A short reason when the text is not a value for this field.
 pub fn set(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
+    if from_table(wing, row, field) {
+        return Err(TABLE_FIELD.into());
+    }
     if field.is_text() {
         return set_text(wing, row, field, input.trim());
     }
@@ -451,9 +457,30 @@ fn rename_airfoil(wing: &mut Wing, row: usize, new: &str) -> Result<(), String> 
     Ok(())
 }
 
+/// Why a table airfoil's derived field cannot be changed in the workbench.
+pub const TABLE_FIELD: &str =
+    "comes from the airfoil's table (read-only here; edit the table in the file)";
+
+/// True for a table airfoil's fields that its table gives (read-only here: only cl_max is
+/// the user's own).
+#[must_use]
+pub fn from_table(wing: &Wing, row: usize, field: Field) -> bool {
+    let derived = matches!(
+        field,
+        Field::LiftSlope | Field::AlphaZeroLift | Field::Cd0 | Field::Cd1 | Field::Cd2
+    );
+    derived
+        && airfoil_key(wing, row)
+            .and_then(|k| wing.airfoils.get(k))
+            .is_some_and(|a| a.table.is_some())
+}
+
 /// Moves a value by `steps` small steps (numbers), or to the next/previous choice (airfoil,
 /// kind). Returns false when the cell cannot be nudged.
 pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
+    if from_table(wing, row, field) {
+        return false;
+    }
     match field {
         Field::Airfoil => cycle_airfoil(wing, row, steps),
         Field::Kind => {
@@ -508,4 +535,25 @@ fn cycle_airfoil(wing: &mut Wing, row: usize, steps: i32) -> bool {
     let next = (i64::try_from(i).unwrap_or(0) + i64::from(steps.signum())).rem_euclid(n);
     s.airfoil = keys[usize::try_from(next).unwrap_or(0)].clone();
     true
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn long_numbers_fit_their_cells_without_a_chopped_digit() {
+        let mut wing = crate::tui::starter::wing();
+        wing.stations[1].y = -999.999;
+        wing.stations[1].chord = 1000.0;
+        for (field, v) in [(Field::Y, -999.999), (Field::Chord, 1000.0)] {
+            let shown = display(&wing, 1, field);
+            assert!(
+                shown.chars().count() <= usize::from(field.width()),
+                "{shown}"
+            );
+            let back: f64 = shown.parse().expect("a whole number");
+            assert!((back - v).abs() <= 0.01 * v.abs(), "{shown} for {v}");
+        }
+    }
 }

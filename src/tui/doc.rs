@@ -1,9 +1,11 @@
 //! One open wing: its model, file, unsaved state, undo history, cursor and latest solution.
 
-use std::path::PathBuf;
+use std::path::{Path, PathBuf};
 
 use super::cells::Sheet;
+use crate::fsio::Stamp;
 use crate::solver::{self, Method, PreparedWing, Solution};
+use crate::wing::file;
 use crate::wing::Wing;
 
 /// Most undo steps kept per wing.
@@ -39,6 +41,9 @@ pub struct Doc {
     pub path: Option<PathBuf>,
     /// The wing as last read or saved (`None` for a wing never saved).
     pub saved: Option<Wing>,
+    /// What the file held when it was last read or written, so a save can tell whether
+    /// someone changed it since (`None`: no file, or it could not be read).
+    pub disk: Option<Stamp>,
     /// Earlier states, newest last.
     undo: Vec<Wing>,
     /// Undone states, newest last.
@@ -52,6 +57,26 @@ pub struct Doc {
     prepared: Option<PreparedWing>,
 }
 
+/// Reads a wing file and stamps the bytes read; a missing file or a folder is said plainly, a
+/// broken file by its first problem.
+///
+/// # Errors
+/// One line naming the path and what is wrong.
+pub fn read_stamped(path: &Path) -> Result<(Wing, Stamp), String> {
+    if path.is_dir() {
+        return Err(format!(
+            "{} is a folder: give a wing file's path (w lists the wings nearby)",
+            path.display()
+        ));
+    }
+    if !path.exists() {
+        return Err(format!("no such file: {}", path.display()));
+    }
+    let text = file::read_text(path).map_err(|e| e.to_string())?;
+    let wing = file::parse(&text, path).map_err(|e| e.to_string())?;
+    Ok((wing, Stamp::of(path, text.as_bytes())))
+}
+
 /// Solves a wing at its own condition; the error is one line for the status area.
 pub fn solve(wing: &Wing, method: Method) -> Result<Solution, String> {
     solver::prepare(wing, method)
@@ -60,14 +85,17 @@ pub fn solve(wing: &Wing, method: Method) -> Result<Solution, String> {
 }
 
 impl Doc {
-    /// A wing just read from `path` (or never saved, with `None`).
+    /// A wing just read from `path` (or never saved, with `None`); the file's stamp is taken
+    /// now (use [`Doc::read`] to stamp exactly the bytes that were parsed).
     #[must_use]
     pub fn new(wing: Wing, path: Option<PathBuf>, method: Method) -> Self {
         let saved = path.as_ref().map(|_| wing.clone());
+        let disk = path.as_deref().and_then(Stamp::now);
         let mut doc = Self {
             wing,
             path,
             saved,
+            disk,
             undo: Vec::new(),
             redo: Vec::new(),
             cursor: Cursor::default(),
@@ -76,6 +104,17 @@ impl Doc {
         };
         doc.resolve(method);
         doc
+    }
+
+    /// Reads the wing file at `path`, stamping exactly the bytes it parsed.
+    ///
+    /// # Errors
+    /// One line naming the path and what is wrong.
+    pub fn read(path: &Path, method: Method) -> Result<Self, String> {
+        let (wing, stamp) = read_stamped(path)?;
+        let mut doc = Self::new(wing, Some(path.to_path_buf()), method);
+        doc.disk = Some(stamp);
+        Ok(doc)
     }
 
     /// True when the wing differs from its file (or has no file).

@@ -115,6 +115,8 @@ pub enum Action {
     Quit,
     /// Quit without asking again (from the quit question).
     QuitNow,
+    /// Complete the path typed in a prompt.
+    Complete,
 }
 
 /// A key as the table spells it.
@@ -308,6 +310,13 @@ pub const BINDINGS: &[Binding] = &[
         Some("accept"),
     ),
     bind(
+        &[Edit],
+        &[code(KeyCode::Tab)],
+        Action::Complete,
+        "complete the file or folder name (in a path prompt; again: list the choices)",
+        None,
+    ),
+    bind(
         &[Edit, Picker, Help, Confirm],
         &[code(KeyCode::Esc)],
         Action::Cancel,
@@ -481,7 +490,7 @@ pub const BINDINGS: &[Binding] = &[
         &[Confirm],
         &[k('y'), k('Y')],
         Action::QuitNow,
-        "quit; unsaved wings stay in the session",
+        "quit; unsaved wings stay only if the session was written",
         Some("quit"),
     ),
     bind(

@@ -8,6 +8,7 @@ pub mod actions;
 pub mod app;
 pub mod cells;
 pub mod clipboard;
+pub mod complete;
 pub mod doc;
 pub mod editor;
 pub mod keymap;
@@ -86,6 +87,7 @@ pub fn build_app(options: &LaunchOptions) -> App {
     let dir = session::dir(options.session_dir.as_deref());
     let mut notices = Vec::new();
     let mut start = persist::Start::default();
+    let claim = dir.as_deref().map(session::claim);
     if let Some(dir) = &dir {
         let loaded = session::load(dir);
         notices.extend(loaded.notice);
@@ -115,7 +117,7 @@ pub fn build_app(options: &LaunchOptions) -> App {
             start.docs.retain(doc::Doc::unsaved);
             start.current = start.docs.len();
         }
-        start.docs.extend(opened.docs);
+        start.current = persist::add_opened(&mut start.docs, opened.docs, start.current);
     } else if start.docs.is_empty() {
         if let Some(ex) = &examples {
             let files = persist::example_files(ex);
@@ -126,7 +128,7 @@ pub fn build_app(options: &LaunchOptions) -> App {
         }
     }
     notices.extend(std::mem::take(&mut start.notices));
-    let problems = !notices.is_empty();
+    let mut problems = !notices.is_empty();
     let recovered = start.docs.iter().filter(|d| d.unsaved()).count();
     if recovered > 0 {
         notices.push(format!(
@@ -142,6 +144,21 @@ pub fn build_app(options: &LaunchOptions) -> App {
         examples,
     };
     let mut app = App::new(start.docs, theme::Theme::from_env(options.ascii), settings);
+    match (claim, &app.settings.session_dir) {
+        (Some(session::Claim::Held(lock)), _) => app.session_lock = Some(lock),
+        (Some(session::Claim::Taken(pid)), Some(dir)) => {
+            let who = pid.map_or_else(String::new, |p| format!(" (process {p})"));
+            let why = format!(
+                "another workbench{who} has the session in {} open: this one works on its own \
+                 copy and does not write the session, so save wings to files (s, S)",
+                dir.display()
+            );
+            notices.insert(0, why.clone());
+            problems = true;
+            app.session_state = app::SessionState::Shared(why);
+        }
+        _ => {}
+    }
     app.current = start.current.min(app.docs.len() - 1);
     app.reference = start.reference;
     app.clamp_cursor();
@@ -186,6 +203,9 @@ fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
         guard
             .terminal
             .draw(|frame| view::render(app, frame.area(), frame.buffer_mut()))?;
+        if !app.too_small() {
+            app.status_drawn();
+        }
         for sequence in std::mem::take(&mut app.outbox) {
             guard.write_raw(&sequence)?;
         }

@@ -2,9 +2,10 @@
 
 use std::path::{Path, PathBuf};
 
-use super::app::{App, Reference};
+use super::app::{same_file, App, Reference, SessionState};
 use super::cells::Sheet;
 use super::doc::{self, Cursor, Doc};
+use crate::fsio::Stamp;
 use crate::session::{self, CursorState, Session, SessionReference, SessionWing};
 use crate::solver::Method;
 use crate::wing::file;
@@ -40,12 +41,41 @@ pub fn examples_dir() -> Option<PathBuf> {
 pub fn open_files(files: &[PathBuf], method: Method) -> Start {
     let mut start = Start::default();
     for path in files {
-        match super::actions::read_wing(path) {
-            Ok(wing) => start.docs.push(Doc::new(wing, Some(path.clone()), method)),
+        // A file named twice (or by two names) opens once.
+        if start
+            .docs
+            .iter()
+            .any(|d| d.path.as_deref().is_some_and(|p| same_file(p, path)))
+        {
+            continue;
+        }
+        match Doc::read(path, method) {
+            Ok(doc) => start.docs.push(doc),
             Err(e) => start.notices.push(e),
         }
     }
     start
+}
+
+/// Adds wings opened by name to those kept from the session, one tab per file: a file that is
+/// already open (saved or with unsaved edits) keeps its tab. Returns the tab to show: that of
+/// the first file named, else `current`.
+pub fn add_opened(docs: &mut Vec<Doc>, opened: Vec<Doc>, current: usize) -> usize {
+    let mut first = None;
+    for doc in opened {
+        let open_at = docs.iter().position(|d| {
+            d.path
+                .as_deref()
+                .zip(doc.path.as_deref())
+                .is_some_and(|(a, b)| same_file(a, b))
+        });
+        let at = open_at.unwrap_or_else(|| {
+            docs.push(doc);
+            docs.len() - 1
+        });
+        first.get_or_insert(at);
+    }
+    first.unwrap_or(current)
 }
 
 /// Every `*.toml` in the examples folder, sorted.
@@ -119,6 +149,13 @@ fn restore_wing(
                 Ok(wing) => {
                     let mut doc = Doc::new(wing, entry.path.clone(), method);
                     doc.saved = file_result.and_then(Result::ok);
+                    // The edits were made on the file as it was then; a save checks that
+                    // it still is.
+                    doc.disk = entry
+                        .path
+                        .as_deref()
+                        .zip(entry.base.as_ref())
+                        .map(|(p, hash)| based_on(p, hash));
                     doc
                 }
                 Err(e) => {
@@ -164,6 +201,10 @@ pub fn to_session(app: &App) -> Session {
         .map(|d| SessionWing {
             path: d.path.as_ref().map(|p| absolute(p)),
             recovery: d.unsaved().then(|| file::to_toml(&d.wing)),
+            base: d
+                .unsaved()
+                .then(|| d.disk.as_ref().map(|s| s.hash.clone()))
+                .flatten(),
             cursor: CursorState {
                 sheet: d.cursor.sheet.name().to_string(),
                 row: d.cursor.row,
@@ -188,14 +229,37 @@ fn absolute(path: &Path) -> PathBuf {
     std::path::absolute(path).unwrap_or_else(|_| path.to_path_buf())
 }
 
-/// Saves the session if there is a session folder; reports a failure in the status line.
+/// The stamp of the file an unsaved wing was based on, known only by its hash.
+fn based_on(path: &Path, hash: &str) -> Stamp {
+    let mut stamp = Stamp::now(path).unwrap_or(Stamp {
+        len: 0,
+        hash: String::new(),
+        modified: None,
+    });
+    stamp.hash = hash.to_string();
+    stamp
+}
+
+/// Saves the session if there is a session folder this workbench may write; a failure is
+/// reported in the status line and remembered, so quitting says the edits are only in memory.
 pub fn save_session(app: &mut App) {
+    app.session_changed = false;
     let Some(dir) = app.settings.session_dir.clone() else {
+        app.session_state = SessionState::NotKept("no session folder".into());
         return;
     };
-    if let Err(e) = session::save(&dir, &to_session(app)) {
-        let msg = format!("session not saved to {}: {e}", dir.display());
-        app.say(&msg, true);
+    if matches!(app.session_state, SessionState::Shared(_)) {
+        return;
     }
-    app.session_changed = false;
+    match session::save(&dir, &to_session(app)) {
+        Ok(()) => app.session_state = SessionState::Kept,
+        Err(e) => {
+            let reason = format!("session not saved to {}: {e}", dir.display());
+            // Said once when it starts failing, not over every later message.
+            if app.session_state == SessionState::Kept {
+                app.say(&reason, true);
+            }
+            app.session_state = SessionState::NotKept(reason);
+        }
+    }
 }

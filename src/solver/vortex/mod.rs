@@ -45,6 +45,7 @@ pub struct Prepared {
     options: Options,
     roll_rate: f64,
     lift: LiftLaw,
+    lift_scale: f64,
     /// Each station's (y, chord).
     station_chords: Vec<(f64, f64)>,
     warnings: Vec<String>,
@@ -61,6 +62,8 @@ pub struct State {
     pub g_per_alpha: Vec<f64>,
     /// Section lift coefficient and slope at each control point.
     pub cl: Vec<(f64, f64)>,
+    /// Effective angle of attack at each control point, radians.
+    pub alpha_eff: Vec<f64>,
     /// Newton iterations taken.
     pub iterations: usize,
     /// Final residual.
@@ -82,11 +85,15 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
             options.panels
         )));
     }
-    let wing = &*super::compressibility::corrected(wing);
     let geometry = Geometry::of(wing);
     let sections = Sections::of(wing);
     let spans = controls::spans(&wing.controls);
-    let panels = Panels::of(wing, &sections, options.panels, &spans);
+    let mut panels = Panels::of(wing, &sections, options.panels, &spans);
+    // Prandtl-Glauert scales each whole section curve (table or linear) and its cl_max.
+    let lift_scale = 1.0 / super::compressibility::beta(&wing.condition);
+    for p in &mut panels.points {
+        p.section.airfoil.cl_max *= lift_scale;
+    }
     let influence = Influence::of(&panels);
     let mut warnings = validate::warnings(wing, &geometry);
     if geometry.max_sweep_deg > SWEEP_LIMIT_DEG {
@@ -108,6 +115,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         options,
         roll_rate: wing.condition.roll_rate,
         lift: Section::lift,
+        lift_scale,
         station_chords: wing.stations.iter().map(|s| (s.y, s.chord)).collect(),
         warnings,
     })
@@ -162,6 +170,7 @@ impl Prepared {
             onset,
             lift: self.lift,
             chord_scale: self.geometry.mean_chord,
+            lift_scale: self.lift_scale,
         }
     }
 
@@ -179,6 +188,7 @@ impl Prepared {
         Ok(State {
             alpha,
             g_per_alpha,
+            alpha_eff: done.angles,
             cl: done.cl,
             g: done.g,
             iterations: done.iterations,

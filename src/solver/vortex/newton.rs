@@ -33,6 +33,8 @@ pub struct Problem<'a> {
     pub lift: LiftLaw,
     /// Reference chord for the residual's scale, m.
     pub chord_scale: f64,
+    /// Factor on every section's lift curve (1/beta, Prandtl-Glauert).
+    pub lift_scale: f64,
 }
 
 /// Newton's answer.
@@ -46,6 +48,8 @@ pub struct Converged {
     pub residual: f64,
     /// Section (cl, dcl/dalpha) at each control point.
     pub cl: Vec<(f64, f64)>,
+    /// Effective angle of attack at each control point, radians.
+    pub angles: Vec<f64>,
     /// The Jacobian's LU factors at the answer (for derivatives with respect to alpha).
     pub jacobian: nalgebra::LU<f64, nalgebra::Dyn, nalgebra::Dyn>,
 }
@@ -70,10 +74,14 @@ impl Problem<'_> {
     /// Section (cl, slope) at each control point for circulations `g`.
     #[must_use]
     pub fn lifts(&self, g: &[f64]) -> Vec<(f64, f64)> {
+        let k = self.lift_scale;
         self.angles(g)
             .iter()
             .zip(self.points)
-            .map(|(&a, p)| (self.lift)(&p.section, a))
+            .map(|(&a, p)| {
+                let (cl, slope) = (self.lift)(&p.section, a);
+                (k * cl, k * slope)
+            })
             .collect()
     }
 
@@ -119,6 +127,7 @@ impl Problem<'_> {
             let lu = self.jacobian(&cl).lu();
             if size <= tol && size.is_finite() {
                 return Ok(Converged {
+                    angles: self.angles(&g),
                     g,
                     iterations: iteration,
                     residual: size,

@@ -24,7 +24,7 @@ pub struct Panels {
 }
 
 /// A panel's control point and what the section there needs.
-#[derive(Debug, Clone, Copy)]
+#[derive(Debug, Clone)]
 pub struct ControlPoint {
     /// On the panel's bound vortex (quarter-chord line), m.
     pub at: Vec3,

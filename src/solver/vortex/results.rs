@@ -66,9 +66,14 @@ impl Prepared {
             (0.0, 0.0, 0.0, 0.0, 0.0, 0.0);
         for (i, s) in strips.iter().enumerate() {
             let p = &self.panels.points[i];
-            let local_cl = state.cl[i].0;
-            let a = &p.section.airfoil;
-            let cd = a.cd0 + a.cd1 * local_cl + a.cd2 * local_cl * local_cl;
+            // A linear section's polar is taken at the solved cl (Mach-corrected); a table's
+            // cd at the section's own angle.
+            let cd = if p.section.curves.is_some() {
+                p.section.profile_drag(state.alpha_eff[i])
+            } else {
+                let (a, cl) = (&p.section.airfoil, state.cl[i].0);
+                a.cd0 + a.cd1 * cl + a.cd2 * cl * cl
+            };
             cl += 2.0 * g[i] * s.dy;
             cdi += 2.0 * g[i] * alpha_i[i] * s.ds;
             cdp += p.section.chord * cd * s.ds;

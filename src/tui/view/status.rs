@@ -6,6 +6,7 @@ use ratatui::widgets::Widget;
 
 use super::put;
 use super::wrap::{fit_paths, wrap};
+use crate::text::inert;
 use crate::tui::app::{App, Mode};
 use crate::tui::editor::Purpose;
 use crate::tui::keymap;
@@ -32,10 +33,8 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
             return;
         }
         Mode::Confirm => {
-            let n = app.docs.iter().filter(|d| d.unsaved()).count();
-            let text =
-                format!("{n} wing(s) not saved to file (the session keeps them): quit anyway? y/n");
-            put(buf, area.x, area.y, area.width, &text, t.warning);
+            let (question, _) = app.quit_question();
+            put(buf, area.x, area.y, area.width, &question, t.warning);
             return;
         }
         _ => {}
@@ -96,6 +95,16 @@ pub fn footer(app: &App, area: Rect, buf: &mut Buffer) {
             put(buf, area.x, area.y, area.width, &text, t.invalid);
             return;
         }
+        if let Some(note) = &editor.note {
+            put(buf, area.x, area.y, area.width, &inert(note), t.dim);
+            return;
+        }
+    }
+    if let (Mode::Confirm, (_, Some(advice))) = (&app.mode, app.quit_question()) {
+        // Unsaved work would be lost for good: what to do instead takes the footer.
+        let text = fit_paths(&advice, usize::from(area.width), t.glyphs.ellipsis);
+        put(buf, area.x, area.y, area.width, &text, t.invalid);
+        return;
     }
     let mut x = area.x;
     for (key, hint) in keymap::hints(app.mode.kind()) {

@@ -5,7 +5,8 @@ use std::path::Path;
 
 use toml_edit::{ArrayOfTables, DocumentMut, Item, Key, Table, Value};
 
-use super::{parse, to_toml};
+use super::{parse_with, to_toml};
+use crate::wing::table::{SectionTable, TableSource};
 use crate::wing::{Airfoil, Condition, Control, Station, Wing};
 
 /// `original` (a wing file's text) changed to describe `wing`: values that differ are
@@ -15,12 +16,20 @@ use crate::wing::{Airfoil, Condition, Control, Station, Wing};
 /// `wing`, gives [`to_toml`] instead.
 #[must_use]
 pub fn edit_toml(original: &str, wing: &Wing) -> String {
+    // The wing's own tables stand in for the CSV files the text names: the text is read here
+    // without knowing where it lives.
+    let known: Vec<_> = wing
+        .airfoils
+        .values()
+        .filter_map(|a| a.table.clone())
+        .collect();
+    let parse = |text: &str, path: &str| parse_with(text, Path::new(path), &known);
     let edited = (|| {
-        let old = parse(original, Path::new("original.toml")).ok()?;
+        let old = parse(original, "original.toml").ok()?;
         let mut doc: DocumentMut = original.parse().ok()?;
         edit(&mut doc, &old, wing)?;
         let text = doc.to_string();
-        let again = parse(&text, Path::new("edited.toml")).ok()?;
+        let again = parse(&text, "edited.toml").ok()?;
         (again == as_written(wing)).then_some(text)
     })();
     edited.unwrap_or_else(|| to_toml(wing))
@@ -40,9 +49,11 @@ fn edit(doc: &mut DocumentMut, old: &Wing, new: &Wing) -> Option<()> {
     let root = doc.as_table_mut();
     put(root, "name", Some(old.name.as_str()), new.name.as_str());
     put(root, "symmetric", Some(old.symmetric), new.symmetric);
-    tables(root, "station", &old.stations, &new.stations, station)?;
+    let stations = (old.stations.as_slice(), new.stations.as_slice());
+    tables(root, "station", stations, same_station, station)?;
     airfoils(root, old, new)?;
-    tables(root, "control", &old.controls, &new.controls, control)?;
+    let controls = (old.controls.as_slice(), new.controls.as_slice());
+    tables(root, "control", controls, same_control, control)?;
     condition(root, &old.condition, &new.condition)
 }
 
@@ -92,26 +103,105 @@ fn keep_comment_column(suffix: &str, was: usize, now: usize) -> String {
     format!("{}{rest}", " ".repeat(spaces))
 }
 
+/// Largest table of common-subsequence lengths built for one stretch of changed rows; past it
+/// the rows are matched by a bounded look-ahead instead, so saving a wing of tens of thousands
+/// of stations stays linear in time and memory.
+const EXACT_CELLS: usize = 1 << 20;
+/// How far ahead the bounded matching looks for a row that was kept.
+const LOOK_AHEAD: usize = 16;
+
 /// For each new item, the old item whose table it takes over (`None`: a new table). Equal
-/// items are matched first (a longest common subsequence); between two matches the rest pair
-/// up in order, so an edited row keeps its table and comments, an inserted one gets a new one.
-fn align<T: PartialEq>(old: &[T], new: &[T]) -> Vec<Option<usize>> {
+/// items are matched first; between two matches, items that are `like` each other (the same
+/// station moved or edited) are matched next, and the rest pair up in order. So an edited row
+/// keeps its table and comments, an inserted one gets a new one.
+fn align<T: PartialEq>(old: &[T], new: &[T], like: fn(&T, &T) -> bool) -> Vec<Option<usize>> {
+    let mut out = vec![None; new.len()];
+    let mut gap_start = (0, 0);
+    let strict = matches(old, new, &|a: &T, b: &T| a == b);
+    for &(i, j) in strict
+        .iter()
+        .chain(std::iter::once(&(old.len(), new.len())))
+    {
+        let (oi, nj) = gap_start;
+        let (old_gap, new_gap) = (&old[oi..i], &new[nj..j]);
+        let loose = matches(old_gap, new_gap, &like);
+        pair_in_order(&loose, old_gap.len(), new_gap.len(), &mut out[nj..j], oi);
+        if j < new.len() {
+            out[j] = Some(i);
+        }
+        gap_start = (i + 1, j + 1);
+    }
+    out
+}
+
+/// Fills `slots` (one per new item of a gap) from `found` matches inside the gap, pairing the
+/// items between matches in order; `offset` turns gap indices into whole-list ones.
+fn pair_in_order(
+    found: &[(usize, usize)],
+    n: usize,
+    m: usize,
+    slots: &mut [Option<usize>],
+    offset: usize,
+) {
+    let (mut from_old, mut from_new) = (0, 0);
+    for &(mi, mj) in found.iter().chain(std::iter::once(&(n, m))) {
+        for (k, slot) in slots[from_new..mj].iter_mut().enumerate() {
+            *slot = (from_old + k < mi).then_some(offset + from_old + k);
+        }
+        if mj < m {
+            slots[mj] = Some(offset + mi);
+        }
+        (from_old, from_new) = (mi + 1, mj + 1);
+    }
+}
+
+/// Pairs `(old, new)` of items that are `eq`, in increasing order of both: the common prefix
+/// and suffix, and between them a longest common subsequence when that is small enough, else
+/// a bounded look-ahead match (linear, and exact for the usual few inserted, deleted or
+/// edited rows).
+fn matches<T>(old: &[T], new: &[T], eq: &dyn Fn(&T, &T) -> bool) -> Vec<(usize, usize)> {
+    let prefix = old.iter().zip(new).take_while(|(a, b)| eq(a, b)).count();
+    let (old_rest, new_rest) = (&old[prefix..], &new[prefix..]);
+    let suffix = old_rest
+        .iter()
+        .rev()
+        .zip(new_rest.iter().rev())
+        .take_while(|(a, b)| eq(a, b))
+        .count();
+    let (mid_old, mid_new) = (
+        &old_rest[..old_rest.len() - suffix],
+        &new_rest[..new_rest.len() - suffix],
+    );
+    let middle = if mid_old.len().saturating_mul(mid_new.len()) <= EXACT_CELLS {
+        common_subsequence(mid_old, mid_new, eq)
+    } else {
+        look_ahead(mid_old, mid_new, eq)
+    };
+    let mut out: Vec<(usize, usize)> = (0..prefix).map(|k| (k, k)).collect();
+    out.extend(middle.into_iter().map(|(i, j)| (i + prefix, j + prefix)));
+    let (tail_old, tail_new) = (old.len() - suffix, new.len() - suffix);
+    out.extend((0..suffix).map(|k| (tail_old + k, tail_new + k)));
+    out
+}
+
+/// A longest common subsequence by the textbook table (quadratic; kept for short stretches).
+fn common_subsequence<T>(old: &[T], new: &[T], eq: &dyn Fn(&T, &T) -> bool) -> Vec<(usize, usize)> {
     let (n, m) = (old.len(), new.len());
     let mut common = vec![vec![0_usize; m + 1]; n + 1];
     for i in (0..n).rev() {
         for j in (0..m).rev() {
-            common[i][j] = if old[i] == new[j] {
+            common[i][j] = if eq(&old[i], &new[j]) {
                 common[i + 1][j + 1] + 1
             } else {
                 common[i + 1][j].max(common[i][j + 1])
             };
         }
     }
-    let mut matches = Vec::new();
+    let mut out = Vec::new();
     let (mut i, mut j) = (0, 0);
     while i < n && j < m {
-        if old[i] == new[j] {
-            matches.push((i, j));
+        if eq(&old[i], &new[j]) {
+            out.push((i, j));
             i += 1;
             j += 1;
         } else if common[i + 1][j] >= common[i][j + 1] {
@@ -120,19 +210,118 @@ fn align<T: PartialEq>(old: &[T], new: &[T]) -> Vec<Option<usize>> {
             j += 1;
         }
     }
-    matches.push((n, m));
-    let mut out = vec![None; m];
-    let (mut from_old, mut from_new) = (0, 0);
-    for (mi, mj) in matches {
-        for (k, slot) in out[from_new..mj].iter_mut().enumerate() {
-            *slot = (from_old + k < mi).then_some(from_old + k);
+    out
+}
+
+/// Matches in one pass: equal items pair; otherwise the nearest item within [`LOOK_AHEAD`]
+/// on either side that pairs with the other's current one is taken (an insertion or a
+/// deletion), else both are skipped (an edit).
+fn look_ahead<T>(old: &[T], new: &[T], eq: &dyn Fn(&T, &T) -> bool) -> Vec<(usize, usize)> {
+    let mut out = Vec::new();
+    let (mut i, mut j) = (0, 0);
+    while i < old.len() && j < new.len() {
+        if eq(&old[i], &new[j]) {
+            out.push((i, j));
+            i += 1;
+            j += 1;
+            continue;
         }
-        if mj < m {
-            out[mj] = Some(mi);
-        }
-        (from_old, from_new) = (mi + 1, mj + 1);
+        let skip = (1..=LOOK_AHEAD).find_map(|d| {
+            if new.get(j + d).is_some_and(|b| eq(&old[i], b)) {
+                Some((0, d))
+            } else if old.get(i + d).is_some_and(|a| eq(a, &new[j])) {
+                Some((d, 0))
+            } else {
+                None
+            }
+        });
+        let (di, dj) = skip.unwrap_or((1, 1));
+        i += di;
+        j += dj;
     }
     out
+}
+
+/// Two stations are the same row edited when they sit at the same place along the span or
+/// keep everything but one of their values.
+fn same_station(a: &Station, b: &Station) -> bool {
+    let kept = [
+        a.y == b.y,
+        a.chord == b.chord,
+        a.twist_deg == b.twist_deg,
+        a.airfoil == b.airfoil,
+    ];
+    a.y == b.y || kept.iter().filter(|k| **k).count() >= 3
+}
+
+/// Two controls are the same row edited when they keep their name.
+fn same_control(a: &Control, b: &Control) -> bool {
+    a.name == b.name
+}
+
+/// Every number of the wing rounded to 15 significant digits, the most a double always holds,
+/// so a value a step of arithmetic left a hair off (0.5800000000000001 from halving
+/// 0.56 + 0.6) is written as the shortest decimal that reads back as it (0.58). Changes a
+/// value by at most half a unit in the 15th digit.
+#[must_use]
+pub fn tidy_numbers(wing: &Wing) -> Wing {
+    let mut w = wing.clone();
+    for s in &mut w.stations {
+        for v in [
+            &mut s.y,
+            &mut s.chord,
+            &mut s.twist_deg,
+            &mut s.x_le,
+            &mut s.z,
+        ] {
+            *v = tidy(*v);
+        }
+    }
+    for a in w.airfoils.values_mut() {
+        if a.table.is_some() {
+            // The rest is the table's own fit, read back exactly as it is.
+            a.cl_max = tidy(a.cl_max);
+            continue;
+        }
+        for v in [
+            &mut a.lift_slope,
+            &mut a.alpha_zero_lift_deg,
+            &mut a.cl_max,
+            &mut a.cd0,
+            &mut a.cd1,
+            &mut a.cd2,
+            &mut a.cm0,
+        ] {
+            *v = tidy(*v);
+        }
+    }
+    for c in &mut w.controls {
+        for v in [
+            &mut c.y_inner,
+            &mut c.y_outer,
+            &mut c.chord_fraction,
+            &mut c.deflection_deg,
+        ] {
+            *v = tidy(*v);
+        }
+        c.effectiveness = c.effectiveness.map(tidy);
+    }
+    let k = &mut w.condition;
+    for v in [&mut k.alpha_deg, &mut k.speed, &mut k.altitude] {
+        *v = tidy(*v);
+    }
+    k.target_cl = k.target_cl.map(tidy);
+    w
+}
+
+/// `v` rounded to 15 significant digits (non-finite values as they are).
+#[must_use]
+pub fn tidy(v: f64) -> f64 {
+    if v.is_finite() {
+        format!("{v:.14e}").parse().unwrap_or(v)
+    } else {
+        v
+    }
 }
 
 /// Rewrites the array of tables `key` (`[[station]]`, `[[control]]`) for `new`, reusing the
@@ -140,8 +329,8 @@ fn align<T: PartialEq>(old: &[T], new: &[T]) -> Vec<Option<usize>> {
 fn tables<T: PartialEq>(
     root: &mut Table,
     key: &str,
-    old: &[T],
-    new: &[T],
+    (old, new): (&[T], &[T]),
+    like: fn(&T, &T) -> bool,
     fields: fn(&mut Table, Option<&T>, &T),
 ) -> Option<()> {
     if old == new {
@@ -159,7 +348,7 @@ fn tables<T: PartialEq>(
         return None;
     }
     let mut array = ArrayOfTables::new();
-    for (item, from) in new.iter().zip(align(old, new)) {
+    for (item, from) in new.iter().zip(align(old, new, like)) {
         let reused = from.and_then(|i| Some((existing.get_mut(i)?.take()?, &old[i])));
         let (mut table, before) = match reused {
             Some((table, before)) => (table, Some(before)),
@@ -220,6 +409,10 @@ fn control(t: &mut Table, old: Option<&Control>, new: &Control) {
 }
 
 fn airfoil_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil) {
+    if let Some(table) = &new.table {
+        table_fields(t, old, new, table);
+        return;
+    }
     put(t, "lift_slope", old.map(|o| o.lift_slope), new.lift_slope);
     let zero_lift = (old.map(|o| o.alpha_zero_lift_deg), new.alpha_zero_lift_deg);
     put(t, "alpha_zero_lift", zero_lift.0, zero_lift.1);
@@ -227,6 +420,32 @@ fn airfoil_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil) {
     put(t, "cd0", old.map(|o| o.cd0), new.cd0);
     put(t, "cd1", Some(old.map_or(0.0, |o| o.cd1)), new.cd1);
     put(t, "cd2", Some(old.map_or(0.0, |o| o.cd2)), new.cd2);
+    put(t, "cm0", Some(old.map_or(0.0, |o| o.cm0)), new.cm0);
+}
+
+/// A table airfoil: its table is written only into a fresh `[airfoil.*]` table (the
+/// workbench cannot edit the rows), as the file it was read from or as inline arrays; cl_max
+/// only when it differs from what the file already gives (the table's largest cl when unset).
+fn table_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil, table: &SectionTable) {
+    let old = old.filter(|o| o.table.is_some());
+    if old.is_none() {
+        match &table.source {
+            TableSource::File(name) => put(t, "table", None, name.as_str()),
+            TableSource::Inline => {
+                let c = table.columns();
+                let arrays = [("alpha", Some(&c.alpha_deg)), ("cl", Some(&c.cl))];
+                let rest = [("cd", Some(&c.cd)), ("cm", c.cm.as_ref())];
+                for (key, values) in arrays.into_iter().chain(rest) {
+                    if let Some(values) = values {
+                        let array: toml_edit::Array = values.iter().copied().collect();
+                        t.insert(key, Item::Value(Value::Array(array)));
+                    }
+                }
+            }
+        }
+    }
+    let was = old.map_or_else(|| table.largest_cl(), |o| o.cl_max);
+    put(t, "cl_max", Some(was), new.cl_max);
 }
 
 /// The `[airfoil.*]` tables: edited in place, removed, added at the end; one removed and one
@@ -328,14 +547,58 @@ fn condition(root: &mut Table, old: &Condition, new: &Condition) -> Option<()> {
 mod tests {
     use super::*;
 
+    fn never(_: &i32, _: &i32) -> bool {
+        false
+    }
+
     #[test]
     fn alignment_matches_equal_rows_and_pairs_the_rest_in_order() {
+        let align = |a: &[i32], b: &[i32]| align(a, b, never);
         assert_eq!(align(&[1, 2, 3], &[1, 2, 3]), [Some(0), Some(1), Some(2)]);
         assert_eq!(align(&[1, 3], &[1, 2, 3]), [Some(0), None, Some(1)]);
         assert_eq!(align(&[1, 2, 3], &[1, 3]), [Some(0), Some(2)]);
         assert_eq!(align(&[1, 2, 3], &[1, 9, 3]), [Some(0), Some(1), Some(2)]);
         assert_eq!(align(&[1, 2], &[7, 8, 2]), [Some(0), None, Some(1)]);
-        assert_eq!(align::<i32>(&[], &[4]), [None]);
+        assert_eq!(align(&[], &[4]), [None]);
+    }
+
+    #[test]
+    fn an_edited_row_beside_an_inserted_one_keeps_its_own_table() {
+        // Old rows 10 20 30; new: 10, an inserted 15, 20 edited to 21, 30. Rows are `like`
+        // when they are within 2 of each other.
+        fn near(a: &i32, b: &i32) -> bool {
+            (a - b).abs() <= 2
+        }
+        assert_eq!(
+            align(&[10, 20, 30], &[10, 15, 21, 30], near),
+            [Some(0), None, Some(1), Some(2)]
+        );
+    }
+
+    #[test]
+    fn long_lists_align_in_one_pass() {
+        // Large enough that the quadratic table would not fit in memory; an edit at each end
+        // and an insertion in the middle.
+        let n = 200_000;
+        let old: Vec<i32> = (0..n).collect();
+        let mut new = old.clone();
+        new[0] = -1;
+        new[n as usize - 1] = -2;
+        new.insert(100_000, -3);
+        let got = align(&old, &new, never);
+        assert_eq!(got.len(), new.len());
+        assert_eq!(got[0], Some(0));
+        assert_eq!(got[100_000], None, "the inserted row gets a new table");
+        assert_eq!(got[100_001], Some(100_000));
+        assert_eq!(got[new.len() - 1], Some(n as usize - 1));
+    }
+
+    #[test]
+    fn numbers_are_tidied_to_the_shortest_decimal_that_reads_back() {
+        assert_eq!(format!("{}", tidy(0.5 * (0.56 + 0.6))), "0.58");
+        assert_eq!(tidy(0.1 + 0.2).to_string(), "0.3");
+        assert_eq!(tidy(1.0 / 3.0).to_string(), "0.333333333333333");
+        assert!(tidy(f64::NAN).is_nan());
     }
 
     #[test]

@@ -1,0 +1,1 @@
+//! One-parameter trade studies.
