@@ -245,7 +245,7 @@ impl Prepared {
             } else {
                 f64::NAN
             },
-            root_bending_per_q: right,
+            right_root_bending_per_q: right,
             first_stall: self.first_stall(state),
             spanwise,
             stations,
