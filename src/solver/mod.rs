@@ -8,6 +8,7 @@
 pub mod compressibility;
 pub mod controls;
 pub mod method;
+pub mod moment;
 pub mod series;
 pub mod solution;
 pub mod vortex;
@@ -176,6 +177,7 @@ impl PreparedWing {
             && w.stations == wing.stations
             && w.airfoils == wing.airfoils
             && w.controls == wing.controls
+            && w.reference == wing.reference
             && self.condition_fits(&wing.condition)
     }
 

@@ -25,6 +25,8 @@ pub struct SpanPoint {
     pub cl_ratio: f64,
     /// Past the section's stall: cl beyond cl_max, or on the falling side of its lift curve.
     pub past_stall: bool,
+    /// Section pitching-moment coefficient about the quarter chord, positive nose up.
+    pub cm: f64,
 }
 
 impl SpanPoint {
@@ -60,6 +62,9 @@ pub struct Coefficients {
     pub cn_induced: f64,
     /// Profile part of Cn.
     pub cn_profile: f64,
+    /// Pitching moment about the reference point, positive nose up: Cm = M/(q S_ref c_ref)
+    /// ([`super::moment`]).
+    pub cm: f64,
 }
 
 /// One row of an alpha sweep.
@@ -259,6 +264,8 @@ pub struct Solution {
     pub method: MethodReport,
     /// The wing's CL_max, when it was asked for.
     pub cl_max: Option<ClMax>,
+    /// The reference quantities of Cm (the `[reference]` table, planform defaults).
+    pub reference: crate::wing::ReferenceValues,
     /// Where lifting-line theory is weak for this case.
     pub warnings: Vec<String>,
 }

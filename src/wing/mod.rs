@@ -9,6 +9,7 @@ pub mod file;
 mod fingerprint;
 pub mod geometry;
 mod model;
+mod reference;
 pub mod sections;
 pub mod table;
 pub mod validate;
@@ -17,6 +18,7 @@ pub use blend::{Curve, LinearCurve, TableBlend};
 pub use fingerprint::fingerprint;
 pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};
+pub use reference::{Reference, ReferenceValues};
 pub use sections::Sections;
 
 pub(crate) use model::bracket;

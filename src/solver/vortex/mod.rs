@@ -48,6 +48,7 @@ pub struct Prepared {
     lift_scale: f64,
     /// Each station's (y, chord).
     station_chords: Vec<(f64, f64)>,
+    moment: crate::solver::moment::MomentFrame,
     warnings: Vec<String>,
 }
 
@@ -117,6 +118,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         lift: Section::lift,
         lift_scale,
         station_chords: wing.stations.iter().map(|s| (s.y, s.chord)).collect(),
+        moment: crate::solver::moment::MomentFrame::of(wing, &geometry),
         warnings,
     })
 }

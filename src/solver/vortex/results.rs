@@ -86,6 +86,7 @@ impl Prepared {
         let e =
             (cl.abs() > 1e-11 && cdi > 0.0).then(|| cl * cl / (std::f64::consts::PI * ar * cdi));
         let (cn_induced, cn_profile) = (cn_i / (area * span), cn_p / (area * span));
+        let cm = self.moment.cm(&self.span_points(state, 1.0, &alpha_i));
         Coefficients {
             alpha_deg: state.alpha.to_degrees(),
             cl,
@@ -98,6 +99,7 @@ impl Prepared {
             cn: cn_induced + cn_profile,
             cn_induced,
             cn_profile,
+            cm,
         }
     }
 
@@ -156,6 +158,7 @@ impl Prepared {
                     cl_max,
                     cl_ratio: cl / cl_max,
                     past_stall: past_stall(state.cl[i], cl_max),
+                    cm: p.section.moment(state.alpha_eff[i]),
                 }
             })
             .collect()
@@ -200,6 +203,7 @@ impl Prepared {
                     cl_max,
                     cl_ratio: cl / cl_max,
                     past_stall: cl.abs() > cl_max || (a.past_stall && b.past_stall),
+                    cm: mix(a.cm, b.cm),
                 }
             })
             .collect()
@@ -260,6 +264,7 @@ impl Prepared {
                 extras: Vec::new(),
             },
             cl_max: None,
+            reference: *self.moment.reference(),
             warnings,
         }
     }
