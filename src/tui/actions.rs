@@ -293,7 +293,11 @@ pub fn revert(app: &mut App) {
 /// appends it to the notebook file.
 pub fn copy(app: &mut App) {
     let line = match &app.doc().solved {
-        Ok(s) => report::line(&app.doc().wing, s, app.doc().wing.condition.target_cl),
+        Ok(s) => {
+            let d = app.doc();
+            let target = d.wing.condition.target_cl;
+            report::notebook_line(&d.wing, s, target, d.path.as_deref(), d.unsaved())
+        }
         Err(reason) => {
             let msg = format!("nothing to copy: {reason}");
             app.say(&msg, true);

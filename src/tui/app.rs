@@ -66,6 +66,8 @@ pub struct Status {
     pub text: String,
     /// Whether it reports a failure.
     pub error: bool,
+    /// Whether a frame has shown it; until then a failure is not replaced by later news.
+    pub shown: bool,
 }
 
 /// A pinned wing to compare against.
@@ -194,11 +196,28 @@ impl App {
     }
 
     /// Sets the status line (cleaning the text).
+    ///
+    /// A failure the user has not seen yet (keys typed ahead are handled before the next
+    /// frame) is not replaced: a later failure is added to it, later good news is dropped.
     pub fn say(&mut self, text: &str, error: bool) {
+        let text = inert(text);
+        if self.status.error && !self.status.shown {
+            if error && !self.status.text.contains(&text) {
+                self.status.text = format!("{}; {text}", self.status.text);
+            }
+            return;
+        }
         self.status = Status {
-            text: inert(text),
+            text,
             error,
+            shown: false,
         };
+    }
+
+    /// Records that a frame has shown the status line (the event loop calls it after each
+    /// drawing).
+    pub fn status_shown(&mut self) {
+        self.status.shown = true;
     }
 
     /// The quit question, and when the unsaved wings are not kept anywhere, what to do
@@ -517,6 +536,7 @@ impl App {
     fn add_row(&mut self, how: NewRow) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
+        let before: std::collections::BTreeSet<String> = wing.airfoils.keys().cloned().collect();
         let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
             self.say(&format!("cannot add a row to {}", sheet.name()), true);
             return;
@@ -525,11 +545,21 @@ impl App {
         if result.is_ok() {
             self.doc_mut().cursor.row = new_row;
         }
-        let done = match how {
-            NewRow::Insert => "row inserted",
-            NewRow::Duplicate => "row duplicated",
+        let blended = self
+            .doc()
+            .wing
+            .airfoils
+            .keys()
+            .find(|k| result.is_ok() && !before.contains(k.as_str()) && k.ends_with("-blend"));
+        let done = match (how, blended) {
+            (NewRow::Insert, Some(key)) => format!(
+                "row inserted with airfoil `{key}`, the halfway blend of its neighbours' \
+                 airfoils, so the wing is unchanged"
+            ),
+            (NewRow::Insert, None) => "row inserted".into(),
+            (NewRow::Duplicate, _) => "row duplicated".into(),
         };
-        self.refuse_or(result, done);
+        self.refuse_or(result, &done);
     }
 
     fn delete_row(&mut self) {

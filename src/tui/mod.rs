@@ -202,6 +202,7 @@ fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
         guard
             .terminal
             .draw(|frame| view::render(app, frame.area(), frame.buffer_mut()))?;
+        app.status_shown();
         for sequence in std::mem::take(&mut app.outbox) {
             guard.write_raw(&sequence)?;
         }

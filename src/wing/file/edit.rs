@@ -470,6 +470,25 @@ fn rename(table: &mut Table, from: &str, to: &str) {
     }
 }
 
+/// Renames the condition's `from` to `to` in place, dropping the comments written about the
+/// old quantity (the one after its value and those on the lines just above it): a note on an
+/// angle of attack says nothing true about a target CL.
+fn switch_key(t: &mut Table, from: &str, to: &str) {
+    rename(t, from, to);
+    if let Some(mut key) = t.key_mut(to) {
+        let indent = key
+            .leaf_decor()
+            .prefix()
+            .and_then(|p| p.as_str())
+            .map(|p| p.rsplit('\n').next().unwrap_or("").to_string());
+        let kept = indent.filter(|i| i.trim().is_empty()).unwrap_or_default();
+        key.leaf_decor_mut().set_prefix(kept);
+    }
+    if let Some(Item::Value(v)) = t.get_mut(to) {
+        v.decor_mut().set_suffix("");
+    }
+}
+
 /// `[condition]`: alpha or cl (a switch renames the one key to the other), speed, altitude,
 /// roll rate.
 fn condition(root: &mut Table, old: &Condition, new: &Condition) -> Option<()> {
@@ -482,11 +501,11 @@ fn condition(root: &mut Table, old: &Condition, new: &Condition) -> Option<()> {
     let t = root.get_mut("condition")?.as_table_mut()?;
     match (old.target_cl, new.target_cl) {
         (None, Some(cl)) => {
-            rename(t, "alpha", "cl");
+            switch_key(t, "alpha", "cl");
             put(t, "cl", None, cl);
         }
         (Some(_), None) => {
-            rename(t, "cl", "alpha");
+            switch_key(t, "cl", "alpha");
             put(t, "alpha", None, new.alpha_deg);
         }
         (Some(was), Some(cl)) => put(t, "cl", Some(was), cl),
