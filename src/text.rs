@@ -49,6 +49,19 @@ pub fn json_escaped(json: &str) -> String {
     out
 }
 
+/// How much of the file's own text an error line quotes, in characters.
+pub const QUOTE_CHARS: usize = 80;
+
+/// At most `max` characters of `text`, ending in `...` when cut, so a message quoting a
+/// file stays readable whatever the file holds.
+#[must_use]
+pub fn clip(text: &str, max: usize) -> String {
+    match text.char_indices().nth(max) {
+        None => text.to_string(),
+        Some((at, _)) => format!("{}...", &text[..at]),
+    }
+}
+
 /// Like [`inert`], and also keeps only printable ASCII (for the ASCII mode and for
 /// comparisons in tests).
 #[must_use]
@@ -90,6 +103,16 @@ pub fn readable(v: f64) -> String {
     } else {
         format!("{v:e}")
     }
+}
+
+/// `v` rounded to `digits` significant digits, printed as by [`readable`] (`-0.121`, not
+/// `-0.12100000000000001`).
+#[must_use]
+pub fn significant(v: f64, digits: usize) -> String {
+    let rounded: f64 = format!("{v:.prec$e}", prec = digits.saturating_sub(1))
+        .parse()
+        .unwrap_or(v);
+    readable(rounded)
 }
 
 /// `-0.0` made `0.0`, for output at full precision; every other value unchanged.
@@ -168,6 +191,8 @@ mod tests {
         let back: serde_json::Value = serde_json::from_str(&text).expect("still JSON");
         assert_eq!(back, value);
         assert_eq!(inert_lines("a\u{1b}\nb\u{9b}"), "a?\nb?");
+        assert_eq!(clip("abcdef", 3), "abc...");
+        assert_eq!(clip("ab°", 3), "ab°");
     }
 
     #[test]

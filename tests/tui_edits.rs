@@ -233,7 +233,7 @@ fn a_failed_save_stays_on_screen_until_a_frame_has_shown_it() {
         app.status.text
     );
     // Once seen, later messages replace it as usual.
-    app.status_shown();
+    app.status_drawn();
     app.handle_key(key(KeyCode::Char(']')));
     assert!(!app.status.error, "{}", app.status.text);
 }

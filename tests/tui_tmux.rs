@@ -101,6 +101,17 @@ impl Tmux {
     }
 }
 
+/// True (and says so) when tmux is not installed, so the end-to-end tests are skipped.
+fn tmux_missing() -> bool {
+    let missing = !Tmux::available();
+    if missing {
+        eprintln!(
+            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
+        );
+    }
+    missing
+}
+
 impl Drop for Tmux {
     fn drop(&mut self) {
         let _ = self.run(&["kill-server"]);
@@ -159,10 +170,7 @@ fn strip_cl(screen: &str) -> Option<String> {
 
 #[test]
 fn edit_save_copy_quit_and_restore_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -230,10 +238,7 @@ fn edit_save_copy_quit_and_restore_in_tmux() {
 
 #[test]
 fn monochrome_ascii_and_small_terminals_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");
@@ -256,11 +261,71 @@ fn monochrome_ascii_and_small_terminals_in_tmux() {
 }
 
 #[test]
+fn keys_wait_while_too_small_and_quit_still_asks_in_tmux() {
+    if tmux_missing() {
+        return;
+    }
+    let dir = tempfile::tempdir().expect("temp dir");
+    let wing_path = tui_support::write_tapered(dir.path());
+    let tmux = Tmux::new("small");
+    tmux.start(&command(&dir.path().join("s"), "", &[&wing_path]));
+    tmux.wait_for("the workbench", |s| s.contains("\nCL "));
+    tmux.keys(&["l", ">"]);
+    tmux.wait_for("the nudge", |s| s.contains("chord = 1.700"));
+    tmux.run(&["resize-window", "-t", "t", "-x", "60", "-y", "20"]);
+    tmux.wait_for("the size message", |s| s.contains("terminal too small"));
+    // Undo, a move and a nudge, unseen: none of them may act.
+    tmux.keys(&["u", "j", "+"]);
+    tmux.keys(&["q"]);
+    let asked = tmux.wait_for("the quit question on the small screen", |s| {
+        s.contains("anyway? y/n")
+    });
+    assert!(asked.contains("terminal too small"), "{asked}");
+    tmux.keys(&["n"]);
+    tmux.wait_for("the question gone", |s| !s.contains("anyway?"));
+    tmux.run(&["resize-window", "-t", "t", "-x", "80", "-y", "24"]);
+    let back = tmux.wait_for("the layout again", |s| s.contains("┌ stations"));
+    assert!(
+        back.contains("1.700   0.00 root"),
+        "the keys did nothing:\n{back}"
+    );
+    assert!(back.contains("Tapered trainer*"), "{back}");
+    tmux.keys(&["q"]);
+    tmux.wait_for("the quit question", |s| s.contains("quit anyway? y/n"));
+    tmux.keys(&["y"]);
+    tmux.wait_exit();
+}
+
+#[test]
+fn tab_completes_the_open_prompt_in_tmux() {
+    if tmux_missing() {
+        return;
+    }
+    let dir = tempfile::tempdir().expect("temp dir");
+    let wing_path = tui_support::write_tapered(dir.path());
+    let other = dir.path().join("glider-variant.toml");
+    std::fs::write(
+        &other,
+        tui_support::TAPERED.replace("Tapered trainer", "Variant B"),
+    )
+    .expect("second wing");
+    let tmux = Tmux::new("complete");
+    tmux.start(&command(&dir.path().join("s"), "", &[&wing_path]));
+    tmux.wait_for("the workbench", |s| s.contains("\nCL "));
+    tmux.keys(&["o"]);
+    tmux.wait_for("the prompt", |s| s.contains("open wing file:"));
+    tmux.keys(&["-l", &format!("{}/gl", dir.path().display())]);
+    tmux.keys(&["Tab"]);
+    tmux.wait_for("the completed name", |s| s.contains("glider-variant.toml"));
+    tmux.keys(&["Enter"]);
+    tmux.wait_for("the opened wing", |s| s.contains("2:Variant B"));
+    tmux.keys(&["q"]);
+    tmux.wait_exit();
+}
+
+#[test]
 fn two_workbenches_on_one_file_and_one_session_in_tmux() {
-    if !Tmux::available() {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    if tmux_missing() {
         return;
     }
     let dir = tempfile::tempdir().expect("temp dir");

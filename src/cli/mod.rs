@@ -4,6 +4,7 @@
 mod commands;
 mod design;
 mod loads;
+mod refusal;
 
 use std::path::PathBuf;
 use std::process::ExitCode;

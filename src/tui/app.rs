@@ -66,8 +66,10 @@ pub struct Status {
     pub text: String,
     /// Whether it reports a failure.
     pub error: bool,
-    /// Whether a frame has shown it; until then a failure is not replaced by later news.
+    /// Whether a frame showing it has been drawn (so the user has had the chance to read it).
     pub shown: bool,
+    /// Counts messages said, so an action can tell whether it said anything.
+    pub serial: u64,
 }
 
 /// A pinned wing to compare against.
@@ -204,6 +206,7 @@ impl App {
         if self.status.error && !self.status.shown {
             if error && !self.status.text.contains(&text) {
                 self.status.text = format!("{}; {text}", self.status.text);
+                self.status.serial += 1;
             }
             return;
         }
@@ -211,13 +214,26 @@ impl App {
             text,
             error,
             shown: false,
+            serial: self.status.serial + 1,
         };
     }
 
-    /// Records that a frame has shown the status line (the event loop calls it after each
-    /// drawing).
-    pub fn status_shown(&mut self) {
+    /// Called after each frame is drawn: the status message has been on screen.
+    pub fn status_drawn(&mut self) {
         self.status.shown = true;
+    }
+
+    /// A message the user has seen no longer applies once the cursor, pane, wing or cell
+    /// changes without a new message: it is cleared, so the line never describes a cell
+    /// or a file state that is no longer the one in view.
+    fn clear_stale_status(&mut self, said_before: u64, action: Action) {
+        let stays = matches!(action, Action::Help | Action::Picker | Action::Quit);
+        if !stays && self.status.shown && self.status.serial == said_before {
+            self.status = Status {
+                serial: self.status.serial,
+                ..Status::default()
+            };
+        }
     }
 
     /// The quit question, and when the unsaved wings are not kept anywhere, what to do
@@ -244,6 +260,10 @@ impl App {
         if event.kind == KeyEventKind::Release {
             return;
         }
+        if self.too_small() {
+            self.key_while_too_small(&event);
+            return;
+        }
         match keymap::lookup(self.mode.kind(), &event) {
             Some(action) => self.update(action),
             None => match &mut self.mode {
@@ -258,16 +278,53 @@ impl App {
         }
     }
 
+    /// Whether the terminal is below the size the workbench lays out in (only "terminal too
+    /// small" is shown then).
+    #[must_use]
+    pub fn too_small(&self) -> bool {
+        self.size.width < super::view::MIN_WIDTH || self.size.height < super::view::MIN_HEIGHT
+    }
+
+    /// While nothing but "terminal too small" can be seen, a key must not change what the
+    /// user cannot see: only quit works, and its question is shown on that screen.
+    fn key_while_too_small(&mut self, event: &KeyEvent) {
+        let answer = keymap::lookup(ModeKind::Confirm, event);
+        match (&self.mode, keymap::lookup(ModeKind::Normal, event)) {
+            (Mode::Confirm, _) => {
+                if let Some(action) = answer {
+                    self.update(action);
+                }
+            }
+            (_, Some(Action::Quit)) => {
+                self.mode = Mode::Normal;
+                self.update(Action::Quit);
+            }
+            _ => {}
+        }
+    }
+
     /// Applies one action.
     pub fn update(&mut self, action: Action) {
         self.session_changed = true;
         let overwrite = std::mem::take(&mut self.overwrite_armed) && action == Action::Save;
         match self.mode.kind() {
-            ModeKind::Normal if action == Action::Save => super::actions::save(self, overwrite),
-            ModeKind::Normal => self.normal(action),
+            ModeKind::Normal => {
+                let said_before = self.status.serial;
+                if action == Action::Save {
+                    super::actions::save(self, overwrite);
+                } else {
+                    self.normal(action);
+                }
+                self.clear_stale_status(said_before, action);
+            }
             ModeKind::Edit => match action {
                 Action::Commit => self.commit_edit(),
                 Action::Cancel => self.mode = Mode::Normal,
+                Action::Complete => {
+                    if let Mode::Edit(editor) = &mut self.mode {
+                        editor.complete_path();
+                    }
+                }
                 _ => {}
             },
             ModeKind::Picker => self.picker(action),
@@ -379,7 +436,8 @@ impl App {
                     self.quit = true;
                 }
             }
-            Action::Save | Action::Commit | Action::Cancel | Action::QuitNow => {}
+            Action::Save | Action::Commit | Action::Cancel | Action::QuitNow | Action::Complete => {
+            }
         }
     }
 

@@ -216,12 +216,14 @@ pub fn columns(wing: &Wing, sheet: Sheet, offsets: bool) -> Vec<Field> {
             Field::Cd2,
         ],
         Sheet::Controls => vec![
+            // Deflection next to the kind: the number a designer changes most, so it is
+            // in view at 80 columns.
             Field::Name,
             Field::Kind,
+            Field::Deflection,
             Field::YInner,
             Field::YOuter,
             Field::ChordFraction,
-            Field::Deflection,
             Field::Effectiveness,
         ],
         Sheet::Condition => {

@@ -48,6 +48,8 @@ pub struct Editor {
     pub area: TextArea<'static>,
     /// Why the last attempt to commit was refused; shown in the cell and the status line.
     pub error: Option<String>,
+    /// A note under a path prompt: the names Tab could not choose between.
+    pub note: Option<String>,
     /// The text the editor opened with.
     original: String,
 }
@@ -64,6 +66,7 @@ impl Editor {
             purpose,
             area,
             error: None,
+            note: None,
             original: text.to_string(),
         }
     }
@@ -106,6 +109,35 @@ impl Editor {
         };
         if changed {
             self.error = None;
+            self.note = None;
         }
     }
+
+    /// Tab in a path prompt: completes the typed path as far as it is unambiguous; when it
+    /// cannot go further, notes the names that still match. Cells are not paths: nothing.
+    pub fn complete_path(&mut self) {
+        if matches!(self.purpose, Purpose::Cell { .. }) {
+            return;
+        }
+        let typed = self.text();
+        let done = super::complete::complete(&typed, self.purpose == Purpose::Open);
+        if done.text != typed {
+            self.area = replaced(&self.area, &done.text);
+            self.error = None;
+            self.note = None;
+        } else if done.candidates.is_empty() {
+            self.note = Some("no file or folder starts so".to_string());
+        } else {
+            self.note = Some(done.candidates.join("  "));
+        }
+    }
+}
+
+/// A text area like `area` (same styles) holding `text`, the cursor at its end.
+fn replaced(area: &TextArea<'static>, text: &str) -> TextArea<'static> {
+    let mut next = TextArea::new(vec![text.to_string()]);
+    next.set_cursor_line_style(area.cursor_line_style());
+    next.set_style(area.style());
+    next.move_cursor(CursorMove::End);
+    next
 }

@@ -113,6 +113,8 @@ pub enum Action {
     Quit,
     /// Quit without asking again (from the quit question).
     QuitNow,
+    /// Complete the path typed in a prompt.
+    Complete,
 }
 
 /// A key as the table spells it.
@@ -304,6 +306,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Commit,
         "accept (an invalid value is refused, with the reason)",
         Some("accept"),
+    ),
+    bind(
+        &[Edit],
+        &[code(KeyCode::Tab)],
+        Action::Complete,
+        "complete the file or folder name (in a path prompt; again: list the choices)",
+        None,
     ),
     bind(
         &[Edit, Picker, Help, Confirm],

@@ -8,6 +8,7 @@ pub mod actions;
 pub mod app;
 pub mod cells;
 pub mod clipboard;
+pub mod complete;
 pub mod doc;
 pub mod editor;
 pub mod keymap;
@@ -202,7 +203,9 @@ fn event_loop(guard: &mut terminal::Guard, app: &mut App) -> io::Result<()> {
         guard
             .terminal
             .draw(|frame| view::render(app, frame.area(), frame.buffer_mut()))?;
-        app.status_shown();
+        if !app.too_small() {
+            app.status_drawn();
+        }
         for sequence in std::mem::take(&mut app.outbox) {
             guard.write_raw(&sequence)?;
         }

@@ -56,7 +56,8 @@ pub const ASCII: Glyphs = Glyphs {
         horizontal_bottom: "-",
     },
     levels: [" ", ".", ",", "-", "~", "=", "+", "*", "#"],
-    limit: "-",
+    // Not one of the levels, so the line cannot be taken for a bar top.
+    limit: "_",
     stall: "^",
     current: ">",
     separator: "|",

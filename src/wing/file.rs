@@ -112,6 +112,43 @@ pub fn read_text(path: &Path) -> Result<String, ReadError> {
 /// # Errors
 /// The first problem in the text.
 pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
+    parse_spans(text, path).map(|(wing, _)| wing)
+}
+
+/// A wing file's text and where each value stood in it, to locate a problem found after
+/// reading (a target CL the solver cannot reach, say) the way the reader locates its own.
+pub struct Origin {
+    path: PathBuf,
+    text: String,
+    spans: Spans,
+}
+
+impl Origin {
+    /// The one-line error for `field` of `place`: at its value, or at its table's header
+    /// when the file does not give the key.
+    #[must_use]
+    pub fn error(&self, place: &Place, field: &'static str, reason: String) -> WingFileError {
+        let offset = self.spans.offset(place, field);
+        Locator::new(&self.text, &self.path).at(offset, place, field, reason)
+    }
+}
+
+/// Reads and validates a wing file, keeping its [`Origin`].
+///
+/// # Errors
+/// As [`read`].
+pub fn read_with_origin(path: &Path) -> Result<(Wing, Origin), ReadError> {
+    let text = read_text(path)?;
+    let (wing, spans) = parse_spans(&text, path)?;
+    let origin = Origin {
+        path: path.to_path_buf(),
+        text,
+        spans,
+    };
+    Ok((wing, origin))
+}
+
+fn parse_spans(text: &str, path: &Path) -> Result<(Wing, Spans), WingFileError> {
     let locate = Locator::new(text, path);
     let raw: RawWing = toml::from_str(text).map_err(|e| locate.serde_error(&e))?;
     if let Some(condition) = &raw.condition {
@@ -127,7 +164,7 @@ pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
         .map(|p| (spans.offset(&p.place, p.field), p))
         .min_by_key(|(offset, _)| *offset);
     match first {
-        None => Ok(wing),
+        None => Ok((wing, spans)),
         Some((offset, p)) => Err(locate.at(offset, &p.place, p.field, p.reason)),
     }
 }

@@ -113,8 +113,6 @@ pub fn press(app: &mut App, keys: &str) {
             '\t' => KeyCode::Tab,
             c => KeyCode::Char(c),
         };
-        // The user has seen the screen before each key.
-        app.status_shown();
         app.handle_key(key(code));
     }
 }

@@ -282,10 +282,11 @@ impl Prepared {
     /// The angle of attack (radians) that gives lift coefficient `cl`.
     ///
     /// # Errors
-    /// [`SolveError::Unreachable`] when the lift slope is zero.
+    /// [`SolveError::Unreachable`] when the lift slope is zero: below a billionth of the
+    /// sections' mean slope (relative, so small but real slopes are not called zero).
     pub fn alpha_for_cl(&self, cl: f64) -> Result<f64, SolveError> {
         let slope = self.per_alpha[0];
-        if slope.abs() < 1e-14 {
+        if self.cl_alpha().abs() <= 1e-9 * self.integrals.mean_lift_slope {
             return Err(SolveError::Unreachable(cl));
         }
         Ok((cl / (PI * self.geometry.aspect_ratio) - self.at_zero[0]) / slope)

@@ -31,13 +31,13 @@ pub const STRIP_HEIGHT: u16 = 4;
 /// Draws the whole workbench into `area` of `buf`.
 pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     if area.width < MIN_WIDTH || area.height < MIN_HEIGHT {
-        too_small(area, buf);
+        too_small(app, area, buf);
         return;
     }
     let status_rows = status::height(app, area.width).max(1);
     let [wings, condition, main, strip, status, footer] = Layout::vertical([
         Constraint::Length(1),
-        Constraint::Length(1),
+        Constraint::Length(condition::height(app, area.width)),
         Constraint::Min(8),
         Constraint::Length(results::height(app)),
         Constraint::Length(status_rows),
@@ -61,15 +61,32 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     }
 }
 
-fn too_small(area: Rect, buf: &mut Buffer) {
+/// The only screen below the least size: what is wrong, which keys still work, and the
+/// quit question when it is being asked.
+fn too_small(app: &App, area: Rect, buf: &mut Buffer) {
     if area.area() == 0 {
         return;
     }
-    let text = format!(
-        "terminal too small: {}x{}, the workbench needs {MIN_WIDTH}x{MIN_HEIGHT}",
-        area.width, area.height
-    );
-    Paragraph::new(text)
+    let t = &app.theme;
+    let mut lines = vec![
+        Line::styled(
+            format!(
+                "terminal too small: {}x{}, the workbench needs {MIN_WIDTH}x{MIN_HEIGHT}",
+                area.width, area.height
+            ),
+            t.text,
+        ),
+        Line::styled("keys wait until it grows; q quits", t.dim),
+    ];
+    if matches!(app.mode, Mode::Confirm) {
+        // First, so it is seen even on a very small screen.
+        let (question, advice) = app.quit_question();
+        if let Some(advice) = advice {
+            lines.insert(0, Line::styled(advice, t.invalid));
+        }
+        lines.insert(0, Line::styled(question, t.warning));
+    }
+    Paragraph::new(lines)
         .wrap(Wrap { trim: true })
         .render(area, buf);
 }

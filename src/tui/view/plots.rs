@@ -254,36 +254,54 @@ fn curve(
     y + rows
 }
 
-/// The y axis: its ends (unit in the label column) and the first station to stall. When
-/// the stall marker falls on an end's number, the number steps aside so both stay readable.
+/// The y axis: its ends (unit in the label column) and the first station to stall. The
+/// marker always sits at its own column. When it would cover an end's number, both ends are
+/// written together as a range (`-5.00 to 5.00`) on the side away from the marker, so no
+/// end is hidden and no number is moved past the marker (where it would read as lying
+/// inside the span, or the marker outside it).
 fn axis(app: &App, s: &Solution, inner: Rect, y: u16, (y0, y1): (f64, f64), buf: &mut Buffer) {
     let width = inner.width - LABEL;
     let x0 = inner.x + LABEL;
-    put(buf, inner.x, y, LABEL, "y m", app.theme.dim);
-    let stall = s.first_stall.and_then(|stall| {
-        let t = (stall.y - y0) / (y1 - y0);
-        // Saturating cast of a value already clamped to the plot's columns.
-        (0.0..=1.0)
-            .contains(&t)
-            .then(|| ((t * f64::from(width)).floor() as u16).min(width - 1))
-    });
+    let dim = app.theme.dim;
+    put(buf, inner.x, y, LABEL, "y m", dim);
+    let stall = s
+        .first_stall
+        .and_then(|stall| stall_column(stall.y, (y0, y1), width));
     let (left, right) = (short(y0), short(y1));
     let len = |t: &str| u16::try_from(t.chars().count()).unwrap_or(u16::MAX);
-    let mut left_at = 0;
-    let mut right_at = width.saturating_sub(len(&right));
-    if let Some(col) = stall {
-        if col < len(&left) {
-            left_at = col + 1;
+    let right_at = width.saturating_sub(len(&right));
+    // One blank column between a number and the marker keeps both readable.
+    let left_clear = stall.is_none_or(|col| col > len(&left));
+    let right_clear = stall.is_none_or(|col| col + 1 < right_at);
+    if left_clear && right_clear {
+        put(buf, x0, y, width, &left, dim);
+        if right_at > len(&left) {
+            put(buf, x0 + right_at, y, len(&right), &right, dim);
         }
-        if col >= right_at {
-            right_at = col.saturating_sub(len(&right));
+    } else if let Some(col) = stall {
+        let range = format!("{left} to {right}");
+        let room_left = col.saturating_sub(1);
+        let room_right = width.saturating_sub(col + 2);
+        if !right_clear && len(&range) <= room_left {
+            put(buf, x0, y, len(&range), &range, dim);
+        } else if !left_clear && len(&range) <= room_right {
+            let at = width - len(&range);
+            put(buf, x0 + at, y, len(&range), &range, dim);
         }
     }
-    put(buf, x0 + left_at, y, width - left_at, &left, app.theme.dim);
-    put(buf, x0 + right_at, y, len(&right), &right, app.theme.dim);
     if let Some(col) = stall {
         put(buf, x0 + col, y, 1, app.theme.glyphs.stall, app.theme.stall);
     }
+}
+
+/// The plot column (0 at the left end) of a spanwise position, `None` off the plot.
+#[must_use]
+pub fn stall_column(y: f64, (y0, y1): (f64, f64), width: u16) -> Option<u16> {
+    let t = (y - y0) / (y1 - y0);
+    // Saturating cast of a value already clamped to the plot's columns.
+    (0.0..=1.0)
+        .contains(&t)
+        .then(|| ((t * f64::from(width)).floor() as u16).min(width.saturating_sub(1)))
 }
 
 /// A number in at most about six characters.

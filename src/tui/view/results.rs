@@ -52,6 +52,7 @@ pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
     add("CD", Some(c.cd), rc.map(|r| r.cd), 5, "");
     add("L/D", ld(s), reference.and_then(ld), 1, "");
     add("Cl_roll", Some(c.cl_roll), rc.map(|r| r.cl_roll), 5, "");
+    add("Cn", Some(c.cn), rc.map(|r| r.cn), 5, "");
     add(
         "alpha",
         Some(c.alpha_deg),

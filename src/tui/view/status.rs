@@ -6,6 +6,7 @@ use ratatui::widgets::Widget;
 
 use super::put;
 use super::wrap::{fit_paths, wrap};
+use crate::text::inert;
 use crate::tui::app::{App, Mode};
 use crate::tui::editor::Purpose;
 use crate::tui::keymap;
@@ -92,6 +93,10 @@ pub fn footer(app: &App, area: Rect, buf: &mut Buffer) {
             // A refused path: the prompt holds the status line, so the reason goes here.
             let text = fit_paths(reason, usize::from(area.width), t.glyphs.ellipsis);
             put(buf, area.x, area.y, area.width, &text, t.invalid);
+            return;
+        }
+        if let Some(note) = &editor.note {
+            put(buf, area.x, area.y, area.width, &inert(note), t.dim);
             return;
         }
     }

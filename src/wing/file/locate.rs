@@ -14,6 +14,7 @@ use toml::Spanned;
 
 use super::super::validate::{did_you_mean, Place};
 use super::WingFileError;
+use crate::text::{clip, QUOTE_CHARS};
 
 /// Names places and turns offsets into 1-based line:column for one file's text.
 pub(super) struct Locator<'a> {
@@ -54,8 +55,10 @@ impl<'a> Locator<'a> {
             line,
             column,
             place: one_line(&place.to_string()),
-            field: one_line(field),
-            reason: one_line(&reason),
+            field: one_line(&clip(field, QUOTE_CHARS)),
+            // The parts quoted from the file are clipped where they are quoted; this bounds
+            // whatever else a message could carry.
+            reason: one_line(&clip(&reason, 3 * QUOTE_CHARS)),
         }
     }
 
@@ -175,6 +178,8 @@ fn one_line(s: &str) -> String {
 
 fn unknown_kind(variant: &str) -> String {
     let kinds = ["flap", "aileron"];
+    let variant = clip(variant, QUOTE_CHARS);
+    let variant = variant.as_str();
     match did_you_mean(variant, &kinds) {
         Some(best) => format!("unknown control kind `{variant}` (did you mean `{best}`?)"),
         None => format!("unknown control kind `{variant}` (expected `flap` or `aileron`)"),
@@ -194,9 +199,9 @@ fn wrong_type(message: &str, field: &str) -> Option<String> {
         other => other.to_string(),
     };
     let got = match got {
-        "map" => "a table",
-        "sequence" => "an array",
-        other => other,
+        "map" => "a table".to_string(),
+        "sequence" => "an array".to_string(),
+        other => clip(other, QUOTE_CHARS),
     };
     Some(format!("must be {wanted} (got {got})"))
 }
