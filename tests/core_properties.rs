@@ -26,6 +26,7 @@ fn cambered() -> Airfoil {
         cd0: 0.009,
         cd1: -0.002,
         cd2: 0.006,
+        ..Airfoil::default()
     }
 }
 

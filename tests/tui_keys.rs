@@ -492,3 +492,29 @@ fn a_condition_change_re_solves_like_a_fresh_solve() {
     press(&mut app, "\t\t\t-");
     assert_eq!(shown(&app), fresh(&app));
 }
+
+#[test]
+fn a_table_airfoils_derived_values_are_read_only_and_its_cl_max_editable() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("wings/ridge-courier.toml");
+    let wing = file::read(&path).expect("loads");
+    let mut app = app_with(wing.clone(), Theme::monochrome(UNICODE), dir.path());
+    // Airfoil pane, first row (outboard), lift-slope column: neither a nudge nor the editor.
+    press(&mut app, "\tl+");
+    assert!(
+        app.status.error && app.status.text.contains("table"),
+        "{:?}",
+        app.status
+    );
+    press(&mut app, "\n");
+    assert!(
+        matches!(app.mode, Mode::Normal),
+        "no editor on a read-only cell"
+    );
+    assert_eq!(app.doc().wing, wing);
+    // cl_max (two columns further) is the user's own.
+    press(&mut app, "ll\n");
+    retype(&mut app, "1.25");
+    press(&mut app, "\n");
+    assert_eq!(app.doc().wing.airfoils["outboard"].cl_max, 1.25);
+}

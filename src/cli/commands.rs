@@ -6,6 +6,7 @@ use std::path::{Path, PathBuf};
 use super::refusal::{self, Overrides};
 use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
 use crate::report;
+use crate::report_design;
 use crate::solver::{self, FreeStream, Method, PreparedWing, SolveError};
 use crate::text;
 use crate::wing::file::{self, Origin};
@@ -124,10 +125,21 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
         .map_err(|e| refusal::refusal(path, &origin, &e, flags))?;
     refusal::finite(&origin, &s)?;
     warn(path, &s.warnings);
+    let roll = super::design::roll_of(path, &wing, &c, &args.condition)?;
     let out = match args.format {
-        Format::Line => format!("{}\n", report::line(&wing, &s, c.target_cl)),
-        Format::Table => report::table(&wing, &s, c.target_cl),
-        Format::Json => format!("{}\n", report::json(&wing, &s, c.target_cl)),
+        Format::Line => format!(
+            "{}{}\n",
+            report::line(&wing, &s, c.target_cl),
+            report_design::roll_line(roll.as_ref())
+        ),
+        Format::Table => {
+            report_design::with_roll_table(&report::table(&wing, &s, c.target_cl), roll.as_ref())
+        }
+        Format::Json => {
+            let mut json = report::json(&wing, &s, c.target_cl);
+            report_design::add_roll_json(&mut json, roll.as_ref());
+            format!("{json}\n")
+        }
         Format::Csv => report::csv(&s),
     };
     emit(&out, args.format)

@@ -354,6 +354,9 @@ fn parse_number(input: &str) -> Result<f64, String> {
 /// # Errors
 /// A short reason when the text is not a value for this field.
 pub fn set(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
+    if from_table(wing, row, field) {
+        return Err(TABLE_FIELD.into());
+    }
     if field.is_text() {
         return set_text(wing, row, field, input.trim());
     }
@@ -453,9 +456,30 @@ fn rename_airfoil(wing: &mut Wing, row: usize, new: &str) -> Result<(), String> 
     Ok(())
 }
 
+/// Why a table airfoil's derived field cannot be changed in the workbench.
+pub const TABLE_FIELD: &str =
+    "comes from the airfoil's table (read-only here; edit the table in the file)";
+
+/// True for a table airfoil's fields that its table gives (read-only here: only cl_max is
+/// the user's own).
+#[must_use]
+pub fn from_table(wing: &Wing, row: usize, field: Field) -> bool {
+    let derived = matches!(
+        field,
+        Field::LiftSlope | Field::AlphaZeroLift | Field::Cd0 | Field::Cd1 | Field::Cd2
+    );
+    derived
+        && airfoil_key(wing, row)
+            .and_then(|k| wing.airfoils.get(k))
+            .is_some_and(|a| a.table.is_some())
+}
+
 /// Moves a value by `steps` small steps (numbers), or to the next/previous choice (airfoil,
 /// kind). Returns false when the cell cannot be nudged.
 pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
+    if from_table(wing, row, field) {
+        return false;
+    }
     match field {
         Field::Airfoil => cycle_airfoil(wing, row, steps),
         Field::Kind => {

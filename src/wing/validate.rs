@@ -270,6 +270,11 @@ pub fn did_you_mean<'c>(word: &str, candidates: &[&'c str]) -> Option<&'c str> {
 fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
     for (key, a) in &wing.airfoils {
         let place = Place::Airfoil(key.clone());
+        if a.table.is_some() {
+            // The table was checked as it was read; only cl_max is the user's own.
+            cl_max_problems(out, &place, a.cl_max);
+            continue;
+        }
         if finite(out, &place, "lift_slope", a.lift_slope) {
             if a.lift_slope <= 0.0 {
                 out.push(problem(
@@ -287,16 +292,7 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
             );
         }
         within(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg, ANGLE);
-        let cl_max_ok = finite(out, &place, "cl_max", a.cl_max) && a.cl_max > 0.0;
-        if a.cl_max <= 0.0 {
-            out.push(problem(
-                place.clone(),
-                "cl_max",
-                format!("must be > 0 (got {})", readable(a.cl_max)),
-            ));
-        } else if cl_max_ok {
-            at_most(out, &place, "cl_max", a.cl_max, (MAX_CL, ""));
-        }
+        let cl_max_ok = cl_max_problems(out, &place, a.cl_max);
         let cd0_ok = finite(out, &place, "cd0", a.cd0) && a.cd0 >= 0.0;
         if a.cd0 < 0.0 {
             out.push(problem(
@@ -312,7 +308,23 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
         if cl_max_ok && cd0_ok && cd1_ok && cd2_ok {
             polar_problems(&place, a, out);
         }
+        finite(out, &place, "cm0", a.cm0);
     }
+}
+
+/// cl_max finite, above 0 and at most [`MAX_CL`]; true when it is usable.
+fn cl_max_problems(out: &mut Vec<Problem>, place: &Place, cl_max: f64) -> bool {
+    let ok = finite(out, place, "cl_max", cl_max) && cl_max > 0.0;
+    if cl_max <= 0.0 {
+        out.push(problem(
+            place.clone(),
+            "cl_max",
+            format!("must be > 0 (got {})", readable(cl_max)),
+        ));
+    } else if ok {
+        at_most(out, place, "cl_max", cl_max, (MAX_CL, ""));
+    }
+    ok
 }
 
 /// The profile drag polar must not go negative anywhere a section flies, |cl| <= cl_max:

@@ -15,6 +15,7 @@ pub fn thin() -> Airfoil {
         cd0: 0.0,
         cd1: 0.0,
         cd2: 0.0,
+        ..Airfoil::default()
     }
 }
 

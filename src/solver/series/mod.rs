@@ -94,6 +94,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
     let mut warnings = validate::warnings(wing, &geometry);
     warnings.extend(own_warnings(&geometry));
+    warnings.extend(linear_table_notes(wing));
     let scales = (geometry.span, geometry.mean_chord);
     let inputs = spanwise::LocalInputs {
         controls: &control_spans,
@@ -132,6 +133,13 @@ fn own_warnings(geometry: &Geometry) -> Vec<String> {
         ));
     }
     out
+}
+
+/// This method is linear: each table airfoil stands in by its linear range.
+fn linear_table_notes(wing: &Wing) -> Vec<String> {
+    let tables = wing.airfoils.iter();
+    let notes = tables.filter_map(|(key, a)| Some(a.table.as_ref()?.linear_note(key)));
+    notes.collect()
 }
 
 /// The collocation points of a wing and the inputs of its system there.

@@ -164,7 +164,7 @@ impl Locator<'_> {
 
 /// Keys and airfoil names come from the file and may hold line breaks or other control
 /// characters; they are escaped so the error stays one line.
-fn one_line(s: &str) -> String {
+pub(super) fn one_line(s: &str) -> String {
     s.chars()
         .map(|c| {
             if c.is_control() {
