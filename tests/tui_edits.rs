@@ -58,10 +58,10 @@ fn inserting_between_two_airfoils_blends_them_and_leaves_the_results_unchanged()
         inserted.airfoil, "root",
         "not the inner airfoil taken whole"
     );
-    let blend = app.doc().wing.airfoils[&inserted.airfoil];
+    let blend = app.doc().wing.airfoils[&inserted.airfoil].clone();
     let (root, tip) = (
-        app.doc().wing.airfoils["root"],
-        app.doc().wing.airfoils["tip"],
+        app.doc().wing.airfoils["root"].clone(),
+        app.doc().wing.airfoils["tip"].clone(),
     );
     assert!(
         (blend.alpha_zero_lift_deg - 0.5 * (root.alpha_zero_lift_deg + tip.alpha_zero_lift_deg))

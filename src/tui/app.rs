@@ -603,9 +603,12 @@ impl App {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
         let before: std::collections::BTreeSet<String> = wing.airfoils.keys().cloned().collect();
-        let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
-            self.say(&format!("cannot add a row to {}", sheet.name()), true);
-            return;
+        let new_row = match rows::add_row(&mut wing, sheet, row, how) {
+            Ok(new_row) => new_row,
+            Err(why) => {
+                self.say(&why, true);
+                return;
+            }
         };
         let result = self.accept(wing);
         if result.is_ok() {
