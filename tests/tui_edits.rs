@@ -237,3 +237,21 @@ fn a_failed_save_stays_on_screen_until_a_frame_has_shown_it() {
     app.handle_key(key(KeyCode::Char(']')));
     assert!(!app.status.error, "{}", app.status.text);
 }
+
+#[test]
+fn no_station_is_inserted_beside_a_table_airfoil_of_another_name_and_the_reason_is_said() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let example = Path::new(env!("CARGO_MANIFEST_DIR")).join("wings/ridge-courier.toml");
+    let mut app = launch(dir.path(), vec![example]);
+    let before = app.doc().wing.clone();
+    // Between station 2 (`outboard`) and station 3 (`tip`, given by a table).
+    press(&mut app, "ji");
+    assert_eq!(app.doc().wing, before, "nothing inserted");
+    assert!(app.status.error);
+    assert!(
+        app.status.text.contains("table airfoil"),
+        "{}",
+        app.status.text
+    );
+    assert!(app.status.text.contains("station 2"), "{}", app.status.text);
+}

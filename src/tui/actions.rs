@@ -99,7 +99,7 @@ pub fn save(app: &mut App, overwrite_changed: bool) {
         SavePlan::Write(path) => {
             if let Err(e) = write(app, &path, false) {
                 // A folder or file the system will not let us write: ask for another place.
-                let reason = format!("{e}: save as another file");
+                let reason = format!("not saved: {e}; give another path");
                 let start = path.display().to_string();
                 app.ask_save_as(&start, Some(&reason));
             }
