@@ -79,6 +79,21 @@ pub fn fixed(v: f64, decimals: usize) -> String {
     drop_minus_of_zero(format!("{v:.decimals$}"))
 }
 
+/// `v` in at most `width` characters for a table cell: [`fixed`] with `decimals` places, or
+/// fewer places when the number is long, or exponent form when even its whole part is too
+/// long, so no digit is ever cut off (a cut number reads as another number).
+#[must_use]
+pub fn fit_number(v: f64, decimals: usize, width: usize) -> String {
+    let fixed_forms = (0..=decimals).rev().map(|d| fixed(v, d));
+    let exponent_forms = (0..=3usize)
+        .rev()
+        .map(|d| drop_minus_of_zero(format!("{v:.d$e}")));
+    fixed_forms
+        .chain(exponent_forms)
+        .find(|t| t.chars().count() <= width)
+        .unwrap_or_else(|| drop_minus_of_zero(format!("{v:.0e}")))
+}
+
 /// Like [`fixed`] with the sign always shown (`+0.00` for a value that rounds to zero), for
 /// differences.
 #[must_use]
@@ -193,6 +208,15 @@ mod tests {
         assert_eq!(inert_lines("a\u{1b}\nb\u{9b}"), "a?\nb?");
         assert_eq!(clip("abcdef", 3), "abc...");
         assert_eq!(clip("ab°", 3), "ab°");
+    }
+
+    #[test]
+    fn cell_numbers_fit_without_a_cut_digit() {
+        assert_eq!(fit_number(-999.999, 3, 7), "-1000.0");
+        assert_eq!(fit_number(0.5, 3, 7), "0.500");
+        assert_eq!(fit_number(1.5e15, 3, 7), "1.50e15");
+        assert_eq!(fit_number(-1.5e15, 3, 7), "-1.5e15");
+        assert_eq!(fit_number(-1e-20, 3, 7), "0.000");
     }
 
     #[test]

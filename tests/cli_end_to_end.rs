@@ -473,7 +473,7 @@ fn a_small_lift_slope_is_not_called_zero() {
 
 /// The JSON keys whose doc (docs/wing-file.md, "Numbers in the output") says when they are
 /// null; every other number is always a number.
-const MAY_BE_NULL: [&str; 9] = [
+const MAY_BE_NULL: [&str; 12] = [
     "target_CL",
     "L_over_D",
     "e",
@@ -483,6 +483,9 @@ const MAY_BE_NULL: [&str; 9] = [
     "CL_first_stall",
     "alpha_first_stall_deg",
     "residual",
+    "Clp",
+    "Cl_delta_per_rad",
+    "pb_2V",
 ];
 
 fn nulls(v: &Value, key: &str, out: &mut Vec<String>) {

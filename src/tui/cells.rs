@@ -1,7 +1,7 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
-use crate::text::fixed;
+use crate::text::fit_number;
 use crate::wing::{ControlKind, Wing};
 
 /// A pane of cells.
@@ -309,12 +309,13 @@ pub fn display(wing: &Wing, row: usize, field: Field) -> String {
     let Some(v) = number(wing, row, field) else {
         return "-".into();
     };
-    match field {
-        Field::Cd0 | Field::Cd1 | Field::Cd2 => fixed(v, 4),
-        Field::Speed | Field::Altitude => fixed(v, 1),
-        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => fixed(v, 2),
-        _ => fixed(v, 3),
-    }
+    let decimals = match field {
+        Field::Cd0 | Field::Cd1 | Field::Cd2 => 4,
+        Field::Speed | Field::Altitude => 1,
+        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => 2,
+        _ => 3,
+    };
+    fit_number(v, decimals, usize::from(field.width()))
 }
 
 /// A cell's full-precision text, to start the editor with.
@@ -534,4 +535,25 @@ fn cycle_airfoil(wing: &mut Wing, row: usize, steps: i32) -> bool {
     let next = (i64::try_from(i).unwrap_or(0) + i64::from(steps.signum())).rem_euclid(n);
     s.airfoil = keys[usize::try_from(next).unwrap_or(0)].clone();
     true
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn long_numbers_fit_their_cells_without_a_chopped_digit() {
+        let mut wing = crate::tui::starter::wing();
+        wing.stations[1].y = -999.999;
+        wing.stations[1].chord = 1000.0;
+        for (field, v) in [(Field::Y, -999.999), (Field::Chord, 1000.0)] {
+            let shown = display(&wing, 1, field);
+            assert!(
+                shown.chars().count() <= usize::from(field.width()),
+                "{shown}"
+            );
+            let back: f64 = shown.parse().expect("a whole number");
+            assert!((back - v).abs() <= 0.01 * v.abs(), "{shown} for {v}");
+        }
+    }
 }
