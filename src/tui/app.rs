@@ -200,12 +200,12 @@ impl App {
     /// Sets the status line (cleaning the text).
     ///
     /// A failure the user has not seen yet (keys typed ahead are handled before the next
-    /// frame) is not replaced: a later failure is added to it, later good news is dropped.
+    /// frame) is not replaced: a later failure is put before it, later good news is dropped.
     pub fn say(&mut self, text: &str, error: bool) {
         let text = inert(text);
         if self.status.error && !self.status.shown {
             if error && !self.status.text.contains(&text) {
-                self.status.text = format!("{}; {text}", self.status.text);
+                self.status.text = format!("{text}; before that: {}", self.status.text);
                 self.status.serial += 1;
             }
             return;
