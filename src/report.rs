@@ -6,7 +6,7 @@ use std::fmt::Write as _;
 use serde_json::{json, Value};
 
 use crate::solver::{Coefficients, Solution, SpanPoint, SweepPoint};
-use crate::text::{fixed, inert, unsigned_zero};
+use crate::text::{fixed, inert, readable, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
 /// How the condition was set, for the notebook line: a wing solved for a target CL says so
@@ -29,7 +29,7 @@ pub(crate) fn opt(value: Option<f64>, decimals: usize) -> String {
 pub(crate) fn csv_row(values: &[Option<f64>]) -> String {
     let fields: Vec<String> = values
         .iter()
-        .map(|v| v.map_or_else(String::new, |v| unsigned_zero(v).to_string()))
+        .map(|v| v.map_or_else(String::new, |v| readable(unsigned_zero(v))))
         .collect();
     fields.join(",")
 }
@@ -530,5 +530,23 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             }
             out
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::csv_row;
+
+    #[test]
+    fn csv_numbers_are_exact_and_short_at_any_size() {
+        let row = csv_row(&[
+            Some(1e-300),
+            Some(-0.0),
+            Some(2.5e20),
+            Some(-4.0),
+            None,
+            Some(0.1),
+        ]);
+        assert_eq!(row, "1e-300,0,2.5e20,-4,,0.1");
     }
 }

@@ -525,3 +525,18 @@ fn zero_lift_prints_no_nan_and_only_documented_nulls() {
         }
     }
 }
+
+#[test]
+fn ailerons_at_the_deflection_limit_still_solve() {
+    let text = std::fs::read_to_string("wings/trainer.toml").expect("the example");
+    let text = text.replace("deflection = 5.0", "deflection = 90.0");
+    let dir = std::env::temp_dir().join(format!("gammaline-limit-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp folder");
+    let path = dir.join("trainer.toml");
+    std::fs::write(&path, text).expect("write");
+    for format in ["json", "table", "line", "csv"] {
+        let o = gammaline(&["solve", path.to_str().expect("utf-8"), "--format", format]);
+        assert!(o.status.success(), "{format}: {}", stderr(&o));
+    }
+    let _ = std::fs::remove_dir_all(dir);
+}

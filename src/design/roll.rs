@@ -71,7 +71,10 @@ fn ailerons_moved(wing: &Wing, step_deg: f64) -> Wing {
     let mut w = wing.clone();
     for c in &mut w.controls {
         if c.kind == ControlKind::Aileron {
-            c.deflection_deg += step_deg;
+            // The difference is taken about a deflection that keeps both ends within the
+            // valid range; the model is linear in deflection, so the slope is the same.
+            let limit = crate::wing::validate::MAX_ALPHA_DEG - DEFLECTION_STEP_DEG;
+            c.deflection_deg = c.deflection_deg.clamp(-limit, limit) + step_deg;
         }
     }
     w

@@ -12,6 +12,9 @@ use crate::text::{clip, readable, QUOTE_CHARS};
 pub const MAX_ALPHA_DEG: f64 = 90.0;
 /// The largest length (|y|, chord, |x_le|, |z|), m: ten times any wing built.
 pub const MAX_LENGTH_M: f64 = 1000.0;
+/// The smallest span and nonzero chord, m: below a millimetre the planform's ratios (aspect
+/// ratio, taper) lose their meaning in floating point.
+pub const MIN_LENGTH_M: f64 = 0.001;
 /// The largest true airspeed, m/s (about Mach 3; above Mach 0.3 the results are warned).
 pub const MAX_SPEED_M_S: f64 = 1000.0;
 /// The largest section lift slope, per radian: twice the thin-airfoil 2 pi, so a slope given
@@ -201,6 +204,15 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                     "chord",
                     "may be 0 only at the outermost station (a pointed tip)",
                 ));
+            } else if s.chord > 0.0 && s.chord < MIN_LENGTH_M {
+                out.push(problem(
+                    place.clone(),
+                    "chord",
+                    format!(
+                        "must be 0 (a pointed tip) or at least {MIN_LENGTH_M} m (got {})",
+                        readable(s.chord)
+                    ),
+                ));
             }
             at_most(out, &place, "chord", s.chord, LENGTH);
         }
@@ -219,6 +231,29 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 ),
             ));
         }
+    }
+    span_problem(wing, out);
+}
+
+/// A span too small to be a wing (see [`MIN_LENGTH_M`]), at the outermost station's `y`.
+fn span_problem(wing: &Wing, out: &mut Vec<Problem>) {
+    let (Some(first), Some(last)) = (wing.stations.first(), wing.stations.last()) else {
+        return;
+    };
+    let span = if wing.symmetric {
+        2.0 * last.y
+    } else {
+        last.y - first.y
+    };
+    if wing.stations.len() >= 2 && span.is_finite() && span > 0.0 && span < MIN_LENGTH_M {
+        out.push(problem(
+            Place::Station(wing.stations.len() - 1),
+            "y",
+            format!(
+                "the span must be at least {MIN_LENGTH_M} m (got {})",
+                readable(span)
+            ),
+        ));
     }
 }
 
