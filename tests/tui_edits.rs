@@ -32,7 +32,7 @@ fn results(app: &App) -> Vec<f64> {
         c.cdp,
         c.cl_roll,
         c.cn,
-        f.root_bending_moment,
+        f.right_root_bending_moment,
         f.left_root_bending_moment,
     ]
 }
