@@ -23,6 +23,8 @@ pub struct SpanPoint {
     pub cl_max: f64,
     /// cl / cl_max.
     pub cl_ratio: f64,
+    /// Section pitching-moment coefficient about the quarter chord, positive nose up.
+    pub cm: f64,
 }
 
 impl SpanPoint {
@@ -58,6 +60,9 @@ pub struct Coefficients {
     pub cn_induced: f64,
     /// Profile part of Cn.
     pub cn_profile: f64,
+    /// Pitching moment about the reference point, positive nose up: Cm = M/(q S_ref c_ref)
+    /// ([`super::moment`]).
+    pub cm: f64,
 }
 
 /// One row of an alpha sweep.
@@ -215,6 +220,8 @@ pub struct Solution {
     pub flight: Flight,
     /// The method, its resolution and convergence, and its own numbers.
     pub method: MethodReport,
+    /// The reference quantities of Cm (the `[reference]` table, planform defaults).
+    pub reference: crate::wing::ReferenceValues,
     /// Where lifting-line theory is weak for this case.
     pub warnings: Vec<String>,
 }

@@ -41,6 +41,8 @@ pub struct LinearPoint {
     pub alpha_i: Linear,
     /// Circulation per unit airspeed, m.
     pub gamma_per_speed: Linear,
+    /// Section cm about the quarter chord (the linear section's constant `cm0`).
+    pub cm: f64,
 }
 
 impl LinearPoint {
@@ -57,6 +59,7 @@ impl LinearPoint {
             gamma: speed * at(self.gamma_per_speed, alpha),
             cl_max: self.cl_max,
             cl_ratio: cl / self.cl_max,
+            cm: self.cm,
         }
     }
 }
@@ -100,6 +103,7 @@ pub fn linear_point(
         span_load: (ccl.0 / mean_chord, ccl.1 / mean_chord),
         alpha_i: sum.induced,
         gamma_per_speed: (2.0 * span * sum.load.0, 2.0 * span * sum.load.1),
+        cm: section.airfoil.cm0,
     }
 }
 
