@@ -199,9 +199,20 @@ impl App {
     }
 
     /// Sets the status line (cleaning the text).
+    ///
+    /// A failure the user has not seen yet (keys typed ahead are handled before the next
+    /// frame) is not replaced: a later failure is put before it, later good news is dropped.
     pub fn say(&mut self, text: &str, error: bool) {
+        let text = inert(text);
+        if self.status.error && !self.status.shown {
+            if error && !self.status.text.contains(&text) {
+                self.status.text = format!("{text}; before that: {}", self.status.text);
+                self.status.serial += 1;
+            }
+            return;
+        }
         self.status = Status {
-            text: inert(text),
+            text,
             error,
             shown: false,
             serial: self.status.serial + 1,
@@ -593,19 +604,33 @@ impl App {
     fn add_row(&mut self, how: NewRow) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
-            self.say(&format!("cannot add a row to {}", sheet.name()), true);
-            return;
+        let before: std::collections::BTreeSet<String> = wing.airfoils.keys().cloned().collect();
+        let new_row = match rows::add_row(&mut wing, sheet, row, how) {
+            Ok(new_row) => new_row,
+            Err(why) => {
+                self.say(&why, true);
+                return;
+            }
         };
         let result = self.accept(wing);
         if result.is_ok() {
             self.doc_mut().cursor.row = new_row;
         }
-        let done = match how {
-            NewRow::Insert => "row inserted",
-            NewRow::Duplicate => "row duplicated",
+        let blended = self
+            .doc()
+            .wing
+            .airfoils
+            .keys()
+            .find(|k| result.is_ok() && !before.contains(k.as_str()) && k.ends_with("-blend"));
+        let done = match (how, blended) {
+            (NewRow::Insert, Some(key)) => format!(
+                "row inserted with airfoil `{key}`, the halfway blend of its neighbours' \
+                 airfoils, so the wing is unchanged"
+            ),
+            (NewRow::Insert, None) => "row inserted".into(),
+            (NewRow::Duplicate, _) => "row duplicated".into(),
         };
-        self.refuse_or(result, done);
+        self.refuse_or(result, &done);
     }
 
     fn delete_row(&mut self) {
