@@ -9,6 +9,7 @@ use super::cells::{self, Field, Sheet};
 use super::doc::{Cursor, Doc};
 use super::editor::{Editor, Purpose};
 use super::keymap::{self, Action, Dir, ModeKind};
+use super::layout_rules;
 use super::picker::{self, Picker};
 use super::rows::{self, NewRow};
 use super::theme::Theme;
@@ -166,7 +167,7 @@ impl App {
             outbox: Vec::new(),
             quit: false,
             session_changed: false,
-            size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
+            size: Size::new(layout_rules::MIN_WIDTH, layout_rules::MIN_HEIGHT),
             overwrite_armed: false,
             session_state: SessionState::Kept,
             session_lock: None,
@@ -282,7 +283,7 @@ impl App {
     /// small" is shown then).
     #[must_use]
     pub fn too_small(&self) -> bool {
-        self.size.width < super::view::MIN_WIDTH || self.size.height < super::view::MIN_HEIGHT
+        layout_rules::too_small(self.size)
     }
 
     /// While nothing but "terminal too small" can be seen, a key must not change what the
@@ -339,7 +340,7 @@ impl App {
 
     /// Scrolls the help, never past its last line (so Up answers at once after a long Down).
     fn help(&mut self, action: Action) {
-        let max = super::view::help::max_scroll(self.size);
+        let max = layout_rules::help_max_scroll(self.size);
         let page = i32::from(self.size.height.saturating_sub(3).max(1));
         let Mode::Help { scroll } = &mut self.mode else {
             return;
