@@ -193,3 +193,12 @@ impl Doc {
         self.prepared.as_ref().map(PreparedWing::cl_max)
     }
 }
+
+/// Whether two paths name the same file (by canonical path when both exist).
+#[must_use]
+pub fn same_file(a: &Path, b: &Path) -> bool {
+    match (a.canonicalize(), b.canonicalize()) {
+        (Ok(x), Ok(y)) => x == y,
+        _ => a == b,
+    }
+}
