@@ -382,16 +382,21 @@ pub struct SweepTable<'a> {
 pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
     let (g, q) = (table.geometry, table.q);
     let points: Vec<Coefficients> = table.points.iter().map(|p| p.coefficients).collect();
+    // Every row with a section past its cl_max, so no row past the first stall reads as
+    // an ordinary result.
+    let past_stall: Vec<bool> = table.points.iter().map(|p| p.stalled_points > 0).collect();
     let ld = |c: &Coefficients| (c.cd > 0.0).then(|| c.cl / c.cd);
     match style {
         SweepStyle::Json => {
             let rows: Vec<Value> = points
                 .iter()
-                .map(|c| {
+                .zip(&past_stall)
+                .map(|(c, past)| {
                     json!({
                         "alpha_deg": c.alpha_deg, "CL": c.cl, "CDi": c.cdi, "CDp": c.cdp,
                         "CD": c.cd, "e": c.e, "L_over_D": ld(c), "Cl_roll": c.cl_roll,
                         "Cn": c.cn, "lift_N": q * g.area * c.cl, "drag_N": q * g.area * c.cd,
+                        "past_stall": past,
                     })
                 })
                 .collect();
@@ -403,8 +408,9 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             format!("{obj}\n")
         }
         SweepStyle::Csv => {
-            let mut out = String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn\n");
-            for c in &points {
+            let mut out =
+                String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn,past_stall\n");
+            for (c, past) in points.iter().zip(&past_stall) {
                 let row = [
                     Some(c.alpha_deg),
                     Some(c.cl),
@@ -416,7 +422,7 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                     Some(c.cl_roll),
                     Some(c.cn),
                 ];
-                let _ = writeln!(out, "{}", csv_row(&row));
+                let _ = writeln!(out, "{},{}", csv_row(&row), u8::from(*past));
             }
             out
         }
@@ -424,13 +430,13 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             let mut out = format!("wing {}  [{}]\n", inert(&wing.name), fingerprint(wing));
             let _ = writeln!(
                 out,
-                "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
+                "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}  stall",
                 "alpha", "CL", "CDi", "CDp", "CD", "e", "L/D", "lift N"
             );
-            for c in &points {
+            for (c, past) in points.iter().zip(&past_stall) {
                 let _ = writeln!(
                     out,
-                    "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
+                    "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}{}",
                     fixed(c.alpha_deg, 2),
                     fixed(c.cl, 4),
                     fixed(c.cdi, 5),
@@ -438,7 +444,8 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                     fixed(c.cd, 5),
                     opt(c.e, 4),
                     opt(ld(c), 1),
-                    fixed(q * g.area * c.cl, 1)
+                    fixed(q * g.area * c.cl, 1),
+                    if *past { "  past" } else { "" }
                 );
             }
             out
