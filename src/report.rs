@@ -6,7 +6,7 @@ use std::fmt::Write as _;
 use serde_json::{json, Value};
 
 use crate::solver::{Coefficients, Solution, SpanPoint, SweepPoint};
-use crate::text::{fixed, inert, unsigned_zero};
+use crate::text::{fixed, inert, readable, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
 /// How the condition was set, for the notebook line: a wing solved for a target CL says so
@@ -29,7 +29,7 @@ pub(crate) fn opt(value: Option<f64>, decimals: usize) -> String {
 pub(crate) fn csv_row(values: &[Option<f64>]) -> String {
     let fields: Vec<String> = values
         .iter()
-        .map(|v| v.map_or_else(String::new, |v| unsigned_zero(v).to_string()))
+        .map(|v| v.map_or_else(String::new, |v| readable(unsigned_zero(v))))
         .collect();
     fields.join(",")
 }
@@ -42,6 +42,69 @@ pub(crate) fn unsigned_zeros(value: &mut Value) {
         Value::Object(map) => map.values_mut().for_each(unsigned_zeros),
         _ => {}
     }
+}
+
+/// The right half's centre of lift; none when that half carries no lift.
+fn center_of_lift(s: &Solution) -> Option<f64> {
+    Some(s.center_of_lift_y).filter(|y| y.is_finite())
+}
+
+/// The first number of a solution that is not finite, by its JSON key; `None` when every
+/// number prints. Numbers that may be missing (e, delta, the centre of lift) are left out:
+/// they print as `n/a` and `null`.
+#[must_use]
+pub fn non_finite(s: &Solution) -> Option<&'static str> {
+    let c = &s.coefficients;
+    let f = &s.flight;
+    let g = &s.geometry;
+    let stall = s
+        .first_stall
+        .map_or([0.0; 3], |st| [st.y, st.cl_wing, st.alpha_deg]);
+    let scalars = [
+        ("alpha_deg", c.alpha_deg),
+        ("CL", c.cl),
+        ("CDi", c.cdi),
+        ("CDp", c.cdp),
+        ("CD", c.cd),
+        ("Cl_roll", c.cl_roll),
+        ("Cn", c.cn),
+        ("CL_alpha_per_rad", s.cl_alpha),
+        ("tau", s.tau),
+        ("span_m", g.span),
+        ("area_m2", g.area),
+        ("mac_m", g.mac),
+        ("q_Pa", f.q),
+        ("mach", f.mach),
+        ("reynolds_mac", f.reynolds_mac),
+        ("lift_N", f.lift),
+        ("drag_N", f.drag),
+        ("root_bending_moment_Nm", f.root_bending_moment),
+        ("root_bending_moment_left_Nm", f.left_root_bending_moment),
+        ("first_stall_y_m", stall[0]),
+        ("CL_first_stall", stall[1]),
+        ("alpha_first_stall_deg", stall[2]),
+    ];
+    let point_finite = |p: &SpanPoint| point_values(p).iter().all(|v| v.is_finite());
+    scalars
+        .iter()
+        .find(|(_, v)| !v.is_finite())
+        .map(|(key, _)| *key)
+        .or_else(|| (!s.spanwise.iter().all(point_finite)).then_some("spanwise"))
+        .or_else(|| (!s.stations.iter().all(point_finite)).then_some("stations"))
+}
+
+/// A spanwise point's numbers in the CSV's column order.
+const fn point_values(p: &SpanPoint) -> [f64; 8] {
+    [
+        p.y,
+        p.chord,
+        p.cl,
+        p.span_load,
+        p.alpha_i_deg,
+        p.gamma,
+        p.cl_max,
+        p.cl_ratio,
+    ]
 }
 
 fn lift_to_drag(s: &Solution) -> Option<f64> {
@@ -146,7 +209,7 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         fixed(f.lift, 1),
         fixed(f.drag, 2),
         fixed(f.root_bending_moment, 2),
-        fixed(s.center_of_lift_y, 3)
+        opt(center_of_lift(s), 3)
     );
     let stall = s.first_stall.map_or_else(
         || "none (no section's cl rises with alpha)".to_string(),
@@ -276,7 +339,7 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
         "Cn_profile": c.cn_profile,
         "root_bending_moment_Nm": f.root_bending_moment,
         "root_bending_moment_left_Nm": f.left_root_bending_moment,
-        "center_of_lift_y_m": s.center_of_lift_y,
+        "center_of_lift_y_m": center_of_lift(s),
         "first_stall_y_m": s.first_stall.map(|st| st.y),
         "CL_first_stall": s.first_stall.map(|st| st.cl_wing),
         "alpha_first_stall_deg": s.first_stall.map(|st| st.alpha_deg),
@@ -310,17 +373,7 @@ pub fn csv(s: &Solution) -> String {
     let mut out =
         String::from("y_m,chord_m,cl,span_load,alpha_i_deg,gamma_m2_s,cl_max,cl_over_cl_max\n");
     for p in &s.spanwise {
-        let row = [
-            p.y,
-            p.chord,
-            p.cl,
-            p.span_load,
-            p.alpha_i_deg,
-            p.gamma,
-            p.cl_max,
-            p.cl_ratio,
-        ]
-        .map(Some);
+        let row = point_values(p).map(Some);
         let _ = writeln!(out, "{}", csv_row(&row));
     }
     out
@@ -450,5 +503,23 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             }
             out
         }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::csv_row;
+
+    #[test]
+    fn csv_numbers_are_exact_and_short_at_any_size() {
+        let row = csv_row(&[
+            Some(1e-300),
+            Some(-0.0),
+            Some(2.5e20),
+            Some(-4.0),
+            None,
+            Some(0.1),
+        ]);
+        assert_eq!(row, "1e-300,0,2.5e20,-4,,0.1");
     }
 }

@@ -7,6 +7,7 @@ use std::path::Path;
 use serde_json::{json, Value};
 
 use crate::design::loads::{LoadCase, MassDistribution, SparLoads};
+use crate::design::roll::RollAuthority;
 use crate::design::twist::TwistDesign;
 use crate::report::{csv_row, opt, unsigned_zeros};
 use crate::solver::Solution;
@@ -291,4 +292,57 @@ pub fn loads_csv(l: &SparLoads) -> String {
         );
     }
     out
+}
+
+/// The roll-authority part of `solve`'s notebook line (empty without an aileron).
+#[must_use]
+pub fn roll_line(roll: Option<&RollAuthority>) -> String {
+    roll.map_or_else(String::new, |r| {
+        format!(
+            " | roll Clp {} Cl_delta {}/rad pb/2V {}",
+            fixed(r.clp, 4),
+            fixed(r.cl_delta_per_rad, 4),
+            fixed(r.pb_2v, 4)
+        )
+    })
+}
+
+/// `solve`'s table with a `roll` line after the moments (unchanged without an aileron).
+#[must_use]
+pub fn with_roll_table(table: &str, roll: Option<&RollAuthority>) -> String {
+    let Some(r) = roll else {
+        return table.to_string();
+    };
+    let line = format!(
+        "roll        Clp {} per pb/2V  Cl_delta {}/rad  steady pb/2V {} at the file's deflection\n",
+        fixed(r.clp, 4),
+        fixed(r.cl_delta_per_rad, 4),
+        fixed(r.pb_2v, 4)
+    );
+    let mut out = String::with_capacity(table.len() + line.len());
+    let mut placed = false;
+    for l in table.split_inclusive('\n') {
+        out.push_str(l);
+        if !placed && l.starts_with("moments") {
+            out.push_str(&line);
+            placed = true;
+        }
+    }
+    if !placed {
+        out.push_str(&line);
+    }
+    out
+}
+
+/// Adds `Clp`, `Cl_delta_per_rad` and `pb_2V` to `solve`'s JSON object (null without an
+/// aileron).
+pub fn add_roll_json(json: &mut Value, roll: Option<&RollAuthority>) {
+    if let Value::Object(map) = json {
+        map.insert("Clp".into(), json!(roll.map(|r| r.clp)));
+        map.insert(
+            "Cl_delta_per_rad".into(),
+            json!(roll.map(|r| r.cl_delta_per_rad)),
+        );
+        map.insert("pb_2V".into(), json!(roll.map(|r| r.pb_2v)));
+    }
 }

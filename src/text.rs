@@ -49,6 +49,19 @@ pub fn json_escaped(json: &str) -> String {
     out
 }
 
+/// How much of the file's own text an error line quotes, in characters.
+pub const QUOTE_CHARS: usize = 80;
+
+/// At most `max` characters of `text`, ending in `...` when cut, so a message quoting a
+/// file stays readable whatever the file holds.
+#[must_use]
+pub fn clip(text: &str, max: usize) -> String {
+    match text.char_indices().nth(max) {
+        None => text.to_string(),
+        Some((at, _)) => format!("{}...", &text[..at]),
+    }
+}
+
 /// Like [`inert`], and also keeps only printable ASCII (for the ASCII mode and for
 /// comparisons in tests).
 #[must_use]
@@ -64,6 +77,21 @@ pub fn inert_ascii(text: &str) -> String {
 #[must_use]
 pub fn fixed(v: f64, decimals: usize) -> String {
     drop_minus_of_zero(format!("{v:.decimals$}"))
+}
+
+/// `v` in at most `width` characters for a table cell: [`fixed`] with `decimals` places, or
+/// fewer places when the number is long, or exponent form when even its whole part is too
+/// long, so no digit is ever cut off (a cut number reads as another number).
+#[must_use]
+pub fn fit_number(v: f64, decimals: usize, width: usize) -> String {
+    let fixed_forms = (0..=decimals).rev().map(|d| fixed(v, d));
+    let exponent_forms = (0..=3usize)
+        .rev()
+        .map(|d| drop_minus_of_zero(format!("{v:.d$e}")));
+    fixed_forms
+        .chain(exponent_forms)
+        .find(|t| t.chars().count() <= width)
+        .unwrap_or_else(|| drop_minus_of_zero(format!("{v:.0e}")))
 }
 
 /// Like [`fixed`] with the sign always shown (`+0.00` for a value that rounds to zero), for
@@ -90,6 +118,16 @@ pub fn readable(v: f64) -> String {
     } else {
         format!("{v:e}")
     }
+}
+
+/// `v` rounded to `digits` significant digits, printed as by [`readable`] (`-0.121`, not
+/// `-0.12100000000000001`).
+#[must_use]
+pub fn significant(v: f64, digits: usize) -> String {
+    let rounded: f64 = format!("{v:.prec$e}", prec = digits.saturating_sub(1))
+        .parse()
+        .unwrap_or(v);
+    readable(rounded)
 }
 
 /// `-0.0` made `0.0`, for output at full precision; every other value unchanged.
@@ -168,6 +206,17 @@ mod tests {
         let back: serde_json::Value = serde_json::from_str(&text).expect("still JSON");
         assert_eq!(back, value);
         assert_eq!(inert_lines("a\u{1b}\nb\u{9b}"), "a?\nb?");
+        assert_eq!(clip("abcdef", 3), "abc...");
+        assert_eq!(clip("ab°", 3), "ab°");
+    }
+
+    #[test]
+    fn cell_numbers_fit_without_a_cut_digit() {
+        assert_eq!(fit_number(-999.999, 3, 7), "-1000.0");
+        assert_eq!(fit_number(0.5, 3, 7), "0.500");
+        assert_eq!(fit_number(1.5e15, 3, 7), "1.50e15");
+        assert_eq!(fit_number(-1.5e15, 3, 7), "-1.5e15");
+        assert_eq!(fit_number(-1e-20, 3, 7), "0.000");
     }
 
     #[test]

@@ -166,3 +166,31 @@ fn loads_beyond_cl_max_is_one_clear_line() {
         "{err}"
     );
 }
+
+#[test]
+fn solve_reports_roll_authority_for_wings_with_an_aileron() {
+    let j = json(&gammaline(&[
+        "solve",
+        "wings/trainer.toml",
+        "--format",
+        "json",
+    ]));
+    let (clp, power, rate) = (
+        j["Clp"].as_f64().expect("Clp"),
+        j["Cl_delta_per_rad"].as_f64().expect("Cl_delta_per_rad"),
+        j["pb_2V"].as_f64().expect("pb_2V"),
+    );
+    // Right aileron down (the file's +5 deg) rolls left: Cl_roll < 0, pb/2V < 0, damping
+    // negative (shared reference, section 1 conventions).
+    assert!(
+        clp < 0.0 && power < 0.0 && rate < 0.0,
+        "{clp} {power} {rate}"
+    );
+    let cl_roll = j["Cl_roll"].as_f64().unwrap();
+    assert!(
+        (cl_roll + clp * rate).abs() < 1e-9,
+        "steady roll balances the moment"
+    );
+    let table = gammaline(&["solve", "wings/trainer.toml"]);
+    assert!(String::from_utf8_lossy(&table.stdout).contains("steady pb/2V"));
+}

@@ -423,3 +423,120 @@ fn a_file_over_the_size_limit_is_refused_with_the_limit() {
     }
     let _ = std::fs::remove_dir_all(dir);
 }
+
+/// The trainer with its `[condition]` asking for a target CL instead of an alpha.
+fn trainer_with_target_cl(tag: &str, cl: &str, lift_slope: &str) -> PathBuf {
+    let text = std::fs::read_to_string("wings/trainer.toml").expect("the example");
+    let text = text
+        .replace("alpha = 3.0", &format!("cl = {cl}"))
+        .replace("lift_slope = 6.0", &format!("lift_slope = {lift_slope}"));
+    let dir = std::env::temp_dir().join(format!("gammaline-cl-{}-{tag}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp folder");
+    let path = dir.join("trainer.toml");
+    std::fs::write(&path, text).expect("write");
+    path
+}
+
+#[test]
+fn a_target_cl_past_90_deg_is_refused_and_check_points_at_it() {
+    let path = trainer_with_target_cl("beyond", "9.0", "6.0");
+    let file = path.to_str().expect("utf-8");
+    for command in ["check", "solve"] {
+        let o = gammaline(&[command, file]);
+        assert_eq!(o.status.code(), Some(2), "{command}: {}", stdout(&o));
+        let err = stderr(&o);
+        let located = format!("{file}:59:6: condition: cl: ");
+        assert!(
+            err.starts_with(&format!("error: {located}")),
+            "{command}: {err}"
+        );
+        assert!(err.contains("beyond -90 to 90 deg"), "{command}: {err}");
+        assert_eq!(err.lines().count(), 1, "{err}");
+    }
+    let o = gammaline(&["solve", "wings/trainer.toml", "--cl", "-9"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(stderr(&o).contains("--cl"), "{}", stderr(&o));
+    let _ = std::fs::remove_dir_all(path.parent().expect("folder"));
+}
+
+#[test]
+fn a_small_lift_slope_is_not_called_zero() {
+    // Sections with a tiny lift slope give a tiny but nonzero wing lift slope: a target CL
+    // then needs an absurd angle, which is the reason to give.
+    let path = trainer_with_target_cl("slope", "0.5", "1e-20");
+    let o = gammaline(&["solve", path.to_str().expect("utf-8")]);
+    assert_eq!(o.status.code(), Some(2));
+    let err = stderr(&o);
+    assert!(!err.contains("is zero") && err.contains("beyond"), "{err}");
+    let _ = std::fs::remove_dir_all(path.parent().expect("folder"));
+}
+
+/// The JSON keys whose doc (docs/wing-file.md, "Numbers in the output") says when they are
+/// null; every other number is always a number.
+const MAY_BE_NULL: [&str; 12] = [
+    "target_CL",
+    "L_over_D",
+    "e",
+    "delta",
+    "center_of_lift_y_m",
+    "first_stall_y_m",
+    "CL_first_stall",
+    "alpha_first_stall_deg",
+    "residual",
+    "Clp",
+    "Cl_delta_per_rad",
+    "pb_2V",
+];
+
+fn nulls(v: &Value, key: &str, out: &mut Vec<String>) {
+    match v {
+        Value::Null => out.push(key.to_string()),
+        Value::Array(items) => items.iter().for_each(|x| nulls(x, key, out)),
+        Value::Object(map) => map.iter().for_each(|(k, x)| nulls(x, k, out)),
+        _ => {}
+    }
+}
+
+#[test]
+fn zero_lift_prints_no_nan_and_only_documented_nulls() {
+    let doc = std::fs::read_to_string("docs/wing-file.md").expect("the doc");
+    for key in MAY_BE_NULL {
+        assert!(doc.contains(&format!("`{key}`")), "{key} is not documented");
+    }
+    for wing in example_wings() {
+        let file = wing.to_str().expect("utf-8 path");
+        for extra in [&[][..], &["--cl", "0"], &["--alpha", "-89"]] {
+            for format in ["line", "table", "csv"] {
+                let mut args = vec!["solve", file, "--format", format];
+                args.extend_from_slice(extra);
+                let o = gammaline(&args);
+                assert!(o.status.success(), "{args:?}: {}", stderr(&o));
+                let out = stdout(&o).to_lowercase();
+                assert!(
+                    !out.contains("nan") && !out.contains("inf"),
+                    "{args:?}: {out}"
+                );
+            }
+            let v = json_of(file, extra);
+            let mut found = Vec::new();
+            nulls(&v, "", &mut found);
+            found.retain(|k| !MAY_BE_NULL.contains(&k.as_str()));
+            assert!(found.is_empty(), "{file} {extra:?}: null {found:?}");
+        }
+    }
+}
+
+#[test]
+fn ailerons_at_the_deflection_limit_still_solve() {
+    let text = std::fs::read_to_string("wings/trainer.toml").expect("the example");
+    let text = text.replace("deflection = 5.0", "deflection = 90.0");
+    let dir = std::env::temp_dir().join(format!("gammaline-limit-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).expect("temp folder");
+    let path = dir.join("trainer.toml");
+    std::fs::write(&path, text).expect("write");
+    for format in ["json", "table", "line", "csv"] {
+        let o = gammaline(&["solve", path.to_str().expect("utf-8"), "--format", format]);
+        assert!(o.status.success(), "{format}: {}", stderr(&o));
+    }
+    let _ = std::fs::remove_dir_all(dir);
+}

@@ -227,21 +227,40 @@ fn elliptic_root_bending_moment() {
     );
 }
 
-/// A target-CL solve lands on the CL (back-substitution, so to rounding).
+/// A target-CL solve finds the angle of attack of a closed form. On an elliptic planform the
+/// monoplane equation times sin(theta) reads sum A_n (mu_0 + n) sin(n theta) =
+/// (alpha - epsilon(theta)) sin(theta), mu_0 = 4 b/(a0 c0), epsilon = alpha_L0 - twist, so
+/// A_1 = (alpha - alpha_L0w)/(mu_0 + 1) with the wing's zero-lift angle
+/// alpha_L0w = (2/pi) integral_0^pi epsilon sin^2(theta) dtheta (Glauert, *The Elements of
+/// Aerofoil and Airscrew Theory*, 1926; derived here). With alpha_L0 = -2 deg and twist
+/// -4 y^2 deg on span 2 (y^2 = cos^2 theta): alpha_L0w = -2 + (8/pi)(pi/8) = -1 deg, and
+/// CL = pi AR A_1 gives alpha = -1 deg + CL (mu_0 + 1)/(pi AR). (epsilon sin(theta) is a
+/// finite sine series, so collocation at stations on the collocation points is exact: 1e-9.)
 #[test]
-fn target_cl_solve() {
-    let w = tapered_twisted(9.0, 0.45, -3.0);
-    let p = prepared(&w, DEFAULT_TERMS);
+fn target_cl_solve_finds_the_closed_form_angle() {
+    let c0 = 0.3;
+    let airfoil = gammaline::wing::Airfoil {
+        alpha_zero_lift_deg: -2.0,
+        ..thin()
+    };
+    let stations = gammaline::verify::wings::collocation_stations_y(DEFAULT_TERMS)
+        .into_iter()
+        .map(|y| station(y, c0 * (1.0 - y * y).max(0.0).sqrt(), -4.0 * y * y))
+        .collect();
+    let p = prepared(&wing(stations, airfoil), DEFAULT_TERMS);
+    let (b, ar) = (p.geometry().span, p.geometry().aspect_ratio);
+    let mu0 = 4.0 * b / (std::f64::consts::TAU * c0);
     for target in [-0.2, 0.0, 0.35, 1.1] {
         let condition = Condition {
             target_cl: Some(target),
             ..Condition::default()
         };
         let s = p.solve(&condition).expect("solves");
+        let expected = -1.0 + (target * (mu0 + 1.0) / (PI * ar)).to_degrees();
         assert!(
-            (s.coefficients.cl - target).abs() < 1e-12,
-            "{target}: {}",
-            s.coefficients.cl
+            (s.coefficients.alpha_deg - expected).abs() < 1e-9,
+            "CL {target}: alpha {} vs {expected}",
+            s.coefficients.alpha_deg
         );
     }
 }

@@ -132,7 +132,8 @@ fn chord_weighted_mass_relief_matches_the_hand_integral() {
 fn a_load_beyond_cl_max_is_refused() {
     let err = loads::spar_loads(
         &glider(),
-        &case(2000.0, 6.0, 0.0, MassDistribution::Uniform),
+        // CL about 3.2: past the first stall, yet within the +-90 deg the solver accepts.
+        &case(500.0, 6.0, 0.0, MassDistribution::Uniform),
         &solve,
     )
     .unwrap_err();

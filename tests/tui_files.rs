@@ -152,3 +152,35 @@ fn a_wing_left_out_of_the_session_takes_its_reference_tag_with_it() {
     assert!(!bar.contains("(ref)"), "no wing wears the tag: {bar}");
     assert!(restored.reference.is_some(), "the reference stays pinned");
 }
+
+#[test]
+fn saving_a_table_wing_from_the_workbench_keeps_its_table_files_and_arrays() {
+    use gammaline::solver::Method;
+    use gammaline::tui::app::App;
+    use gammaline::tui::doc::Doc;
+    use gammaline::tui::theme::{Theme, UNICODE};
+    let dir = tempfile::tempdir().expect("temp dir");
+    let wings = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
+    for name in [
+        "ridge-courier.toml",
+        "ridge-courier-root.csv",
+        "ridge-courier-outboard.csv",
+    ] {
+        std::fs::copy(wings.join(name), dir.path().join(name)).expect("copy");
+    }
+    let path = dir.path().join("ridge-courier.toml");
+    let original = std::fs::read_to_string(&path).expect("read");
+    let wing = gammaline::wing::file::read(&path).expect("loads");
+    let doc = Doc::new(wing, Some(path.clone()), Method::default());
+    let settings = tui_support::settings(dir.path());
+    let mut app = App::new(vec![doc], Theme::monochrome(UNICODE), settings);
+    // Second station's chord, edited, then saved.
+    press(&mut app, "jl\n");
+    retype(&mut app, "0.35");
+    press(&mut app, "\ns");
+    let saved = std::fs::read_to_string(&path).expect("read");
+    assert!(!app.doc().unsaved(), "{}", app.status.text);
+    let changed: Vec<&str> = saved.lines().filter(|l| !original.contains(l)).collect();
+    assert_eq!(changed, ["chord = 0.35"], "{saved}");
+    assert!(saved.contains("table = \"ridge-courier-root.csv\""));
+}

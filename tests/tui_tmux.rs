@@ -101,15 +101,34 @@ impl Tmux {
     }
 }
 
-/// True (and says so) when tmux is not installed, so the end-to-end tests are skipped.
+/// True (and says so) when tmux is not installed, so the end-to-end tests are skipped on a
+/// contributor's machine. In CI (`CI` set to anything but `false` or `0`, as CI services do)
+/// a missing tmux is a failure: the end-to-end tests must not pass there without running.
 fn tmux_missing() -> bool {
-    let missing = !Tmux::available();
-    if missing {
-        eprintln!(
-            "SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test"
-        );
+    skip_without(Tmux::available(), std::env::var("CI").ok().as_deref())
+}
+
+/// Whether to skip for want of tmux; panics when tmux is wanted but missing in CI.
+fn skip_without(available: bool, ci: Option<&str>) -> bool {
+    if available {
+        return false;
     }
-    missing
+    let in_ci = ci.is_some_and(|v| !matches!(v.trim(), "" | "0" | "false"));
+    assert!(
+        !in_ci,
+        "tmux is not installed but CI is set: install tmux so the end-to-end workbench tests run"
+    );
+    eprintln!("SKIPPED: tmux is not installed; install tmux to run the end-to-end workbench test");
+    true
+}
+
+#[test]
+fn a_missing_tmux_skips_locally_and_fails_in_ci() {
+    assert!(!skip_without(true, Some("true")));
+    assert!(skip_without(false, None));
+    assert!(skip_without(false, Some("false")));
+    let in_ci = std::panic::catch_unwind(|| skip_without(false, Some("true")));
+    assert!(in_ci.is_err(), "a missing tmux passed silently in CI");
 }
 
 impl Drop for Tmux {

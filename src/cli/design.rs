@@ -4,6 +4,7 @@ use std::path::{Path, PathBuf};
 
 use super::commands::{emit, load, method, shown, warn};
 use super::{ConditionArgs, Format};
+use crate::design::roll::{self, RollAuthority};
 use crate::design::{self, twist, DesignError, SolveFn};
 use crate::report_design as render;
 use crate::solver::{self, Solution, SolveError};
@@ -36,7 +37,13 @@ pub(super) fn solver_of(
     args: &ConditionArgs,
 ) -> impl Fn(&Wing, &Condition) -> Result<Solution, SolveError> + Sync {
     let method = method(args);
-    move |w: &Wing, c: &Condition| solver::solve(w, c, method)
+    // The wing carries the condition, so the preparation is done once for its roll rate
+    // and Mach number.
+    move |w: &Wing, c: &Condition| {
+        let mut w = w.clone();
+        w.condition = *c;
+        solver::solve(&w, c, method)
+    }
 }
 
 /// A design error in one line, naming the file.
@@ -74,7 +81,7 @@ pub(super) fn write_wing(
             file::to_toml(wing)
         )
     };
-    crate::session::write_atomic(output, text.as_bytes())
+    crate::fsio::write_atomic(output, text.as_bytes())
         .map_err(|e| inert(&format!("{}: cannot write: {e}", output.display())))
 }
 
@@ -114,4 +121,15 @@ pub(super) fn run(args: &DesignArgs) -> Result<(), String> {
         Format::Csv => render::twist_csv(&report),
     };
     emit(&text, args.format)
+}
+
+/// The roll authority `solve` reports beside each solution (`None` without an aileron).
+pub(super) fn roll_of(
+    path: &Path,
+    wing: &Wing,
+    condition: &Condition,
+    args: &ConditionArgs,
+) -> Result<Option<RollAuthority>, String> {
+    let solve = solver_of(args);
+    roll::roll_authority(wing, condition, &solve).map_err(|e| failed(path, &e))
 }

@@ -4,6 +4,8 @@
 mod commands;
 mod design;
 mod loads;
+mod refusal;
+mod verify;
 
 use std::path::PathBuf;
 use std::process::ExitCode;
@@ -56,6 +58,12 @@ enum Command {
         /// Wing files (TOML).
         #[arg(required = true, value_name = "FILE")]
         files: Vec<PathBuf>,
+    },
+    /// Run the published verification cases and print each with its source; exit 1 if any fails.
+    Verify {
+        /// Output format.
+        #[arg(long, value_enum, default_value_t = verify::VerifyFormat::Table)]
+        format: verify::VerifyFormat,
     },
 }
 
@@ -151,6 +159,7 @@ pub fn run() -> ExitCode {
         Some(Command::Solve(args)) => commands::solve(&args),
         Some(Command::Sweep(args)) => commands::sweep(&args),
         Some(Command::Check { files }) => commands::check(&files),
+        Some(Command::Verify { format }) => return verify::verify(format),
         Some(Command::Design(args)) => design::run(&args),
         Some(Command::Loads(args)) => loads::run(&args),
         Some(Command::Open { files }) => {

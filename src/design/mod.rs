@@ -6,6 +6,7 @@
 //! [`SolveFn`], so the caller chooses the numerical method.
 
 pub mod loads;
+pub mod roll;
 pub mod study;
 pub mod twist;
 

@@ -293,7 +293,7 @@ fn station_at(wing: &Wing, y: f64, airfoils: &mut BTreeMap<String, Airfoil>) -> 
         a.airfoil.clone()
     } else {
         let key = format!("{}~{}@{:.4}", a.airfoil, b.airfoil, t);
-        airfoils.insert(key.clone(), section.airfoil);
+        airfoils.insert(key.clone(), section.to_airfoil());
         key
     };
     Station {

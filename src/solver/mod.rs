@@ -38,6 +38,19 @@ pub enum SolveError {
     /// A target CL that no angle of attack reaches (zero lift slope).
     #[error("cannot reach CL = {0}: the wing's lift slope is zero")]
     Unreachable(f64),
+    /// A target CL whose angle of attack lies beyond
+    /// [`MAX_ALPHA_DEG`](crate::wing::validate::MAX_ALPHA_DEG) either way.
+    #[error(
+        "CL = {} needs alpha = {} deg, beyond -90 to 90 deg",
+        crate::text::significant(*cl, 4),
+        crate::text::significant(*alpha_deg, 4)
+    )]
+    AlphaOutOfRange {
+        /// The target CL.
+        cl: f64,
+        /// The angle of attack that would give it, degrees.
+        alpha_deg: f64,
+    },
     /// A free stream at or above Mach 1.
     #[error("Mach {0:.3}: subsonic lifting-line theory does not apply at Mach 1 or above")]
     Supersonic(f64),
@@ -155,13 +168,23 @@ impl PreparedWing {
     /// prepared afresh, so the answer is always that of the condition given.
     ///
     /// # Errors
-    /// [`SolveError::Invalid`] for a bad condition, [`SolveError::Unreachable`] for an
-    /// unreachable target CL, [`SolveError::NotConverged`] for an iterative solve that fails.
+    /// [`SolveError::Invalid`] for a bad condition, [`SolveError::Unreachable`] or
+    /// [`SolveError::AlphaOutOfRange`] for an unreachable target CL,
+    /// [`SolveError::NotConverged`] for an iterative solve that fails.
     pub fn solve(&self, condition: &Condition) -> Result<Solution, SolveError> {
         subsonic(condition)?;
         let this = self.for_condition(condition)?;
-        match &this.inner {
+        let solution = match &this.inner {
             Inner::Series(p) => p.solve(condition),
+        }?;
+        let alpha_deg = solution.coefficients.alpha_deg;
+        match condition.target_cl {
+            Some(cl)
+                if alpha_deg.is_nan() || alpha_deg.abs() > crate::wing::validate::MAX_ALPHA_DEG =>
+            {
+                Err(SolveError::AlphaOutOfRange { cl, alpha_deg })
+            }
+            _ => Ok(solution),
         }
     }
 

@@ -480,6 +480,10 @@ impl App {
             self.say("this pane is empty: press i to add a row", true);
             return;
         }
+        if cells::from_table(&self.doc().wing, row, field) {
+            self.say(&format!("{}: {}", field.key(), cells::TABLE_FIELD), true);
+            return;
+        }
         let text = cells::edit_text(&self.doc().wing, row, field);
         let purpose = Purpose::Cell { sheet, row, field };
         self.mode = Mode::Edit(Box::new(Editor::for_cell(
@@ -568,6 +572,10 @@ impl App {
         let Cursor { row, .. } = self.doc().cursor;
         let Some(field) = self.field() else { return };
         let mut wing = self.doc().wing.clone();
+        if cells::from_table(&wing, row, field) {
+            self.say(&format!("{}: {}", field.key(), cells::TABLE_FIELD), true);
+            return;
+        }
         if !cells::nudge(&mut wing, row, field, steps) {
             self.say(
                 &format!("{} cannot be nudged; press Enter to edit", field.key()),

@@ -1,8 +1,12 @@
 //! The editable grid over a wing: which panes (sheets) there are, their columns, how a cell
 //! reads, parses and nudges. The app and the views share this one description.
 
-use crate::text::fixed;
-use crate::wing::{ControlKind, Wing};
+use crate::text::fit_number;
+mod fields;
+
+pub use fields::{Field, FieldSpec, Value, SPECS};
+
+use crate::wing::Wing;
 
 /// A pane of cells.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
@@ -56,139 +60,6 @@ impl Sheet {
         } else {
             (i + n - 1) % n
         }]
-    }
-}
-
-/// One editable quantity.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
-#[allow(
-    missing_docs,
-    reason = "the variants are the wing-file keys named in `key`"
-)]
-pub enum Field {
-    Y,
-    Chord,
-    Twist,
-    Airfoil,
-    XLe,
-    Z,
-    AirfoilKey,
-    LiftSlope,
-    AlphaZeroLift,
-    ClMax,
-    Cd0,
-    Cd1,
-    Cd2,
-    Name,
-    Kind,
-    YInner,
-    YOuter,
-    ChordFraction,
-    Deflection,
-    Effectiveness,
-    Alpha,
-    TargetCl,
-    Speed,
-    Altitude,
-}
-
-impl Field {
-    /// The wing-file key, as used by the validation rules.
-    #[must_use]
-    pub const fn key(self) -> &'static str {
-        match self {
-            Self::Y => "y",
-            Self::Chord => "chord",
-            Self::Twist => "twist",
-            Self::Airfoil => "airfoil",
-            Self::XLe => "x_le",
-            Self::Z => "z",
-            Self::AirfoilKey => "key",
-            Self::LiftSlope => "lift_slope",
-            Self::AlphaZeroLift => "alpha_zero_lift",
-            Self::ClMax => "cl_max",
-            Self::Cd0 => "cd0",
-            Self::Cd1 => "cd1",
-            Self::Cd2 => "cd2",
-            Self::Name => "name",
-            Self::Kind => "kind",
-            Self::YInner => "y_inner",
-            Self::YOuter => "y_outer",
-            Self::ChordFraction => "chord_fraction",
-            Self::Deflection => "deflection",
-            Self::Effectiveness => "effectiveness",
-            Self::Alpha => "alpha",
-            Self::TargetCl => "cl",
-            Self::Speed => "speed",
-            Self::Altitude => "altitude",
-        }
-    }
-
-    /// Column heading with unit (the key itself where that says it all).
-    #[must_use]
-    pub const fn title(self) -> &'static str {
-        match self {
-            Self::Y => "y m",
-            Self::Chord => "chord m",
-            Self::AirfoilKey => "airfoil",
-            Self::XLe => "x_le m",
-            Self::Z => "z m",
-            Self::LiftSlope => "a0/rad",
-            Self::AlphaZeroLift => "a_L0",
-            Self::Twist
-            | Self::Airfoil
-            | Self::ClMax
-            | Self::Cd0
-            | Self::Cd1
-            | Self::Cd2
-            | Self::Name
-            | Self::Kind => self.key(),
-            Self::YInner => "y_in m",
-            Self::YOuter => "y_out m",
-            Self::ChordFraction => "cf/c",
-            Self::Deflection => "defl",
-            Self::Effectiveness => "eff",
-            Self::Alpha => "alpha deg",
-            Self::TargetCl => "target CL",
-            Self::Speed => "speed m/s",
-            Self::Altitude => "altitude m",
-        }
-    }
-
-    /// Display width of the column.
-    #[must_use]
-    pub const fn width(self) -> u16 {
-        match self {
-            Self::Airfoil | Self::AirfoilKey | Self::Name => 9,
-            Self::Kind => 7,
-            Self::Twist | Self::AlphaZeroLift | Self::ChordFraction | Self::Deflection => 6,
-            _ => 7,
-        }
-    }
-
-    /// The small nudge step; the large step is ten of these.
-    #[must_use]
-    pub const fn step(self) -> f64 {
-        match self {
-            Self::Y | Self::Chord | Self::XLe | Self::Z | Self::YInner | Self::YOuter => 0.01,
-            Self::Twist | Self::AlphaZeroLift | Self::Alpha => 0.1,
-            Self::Deflection => 0.5,
-            Self::LiftSlope => 0.05,
-            Self::ClMax | Self::ChordFraction | Self::Effectiveness | Self::TargetCl => 0.01,
-            Self::Cd0 | Self::Cd1 | Self::Cd2 => 0.0005,
-            Self::Speed => 1.0,
-            Self::Altitude => 100.0,
-            Self::Airfoil | Self::AirfoilKey | Self::Name | Self::Kind => 1.0,
-        }
-    }
-
-    /// Fields holding text rather than a number.
-    #[must_use]
-    pub const fn is_text(self) -> bool {
-        matches!(
-            self,
-            Self::Airfoil | Self::AirfoilKey | Self::Name | Self::Kind
-        )
     }
 }
 
@@ -260,43 +131,18 @@ pub fn airfoil_key(wing: &Wing, row: usize) -> Option<&str> {
     wing.airfoils.keys().nth(row).map(String::as_str)
 }
 
+/// A numeric field's value at a row (`None` for text, past the last row, or unset).
 fn number(wing: &Wing, row: usize, field: Field) -> Option<f64> {
-    let s = wing.stations.get(row);
-    let a = airfoil_key(wing, row).and_then(|k| wing.airfoils.get(k));
-    let c = wing.controls.get(row);
-    let cond = &wing.condition;
-    match field {
-        Field::Y => s.map(|s| s.y),
-        Field::Chord => s.map(|s| s.chord),
-        Field::Twist => s.map(|s| s.twist_deg),
-        Field::XLe => s.map(|s| s.x_le),
-        Field::Z => s.map(|s| s.z),
-        Field::LiftSlope => a.map(|a| a.lift_slope),
-        Field::AlphaZeroLift => a.map(|a| a.alpha_zero_lift_deg),
-        Field::ClMax => a.map(|a| a.cl_max),
-        Field::Cd0 => a.map(|a| a.cd0),
-        Field::Cd1 => a.map(|a| a.cd1),
-        Field::Cd2 => a.map(|a| a.cd2),
-        Field::YInner => c.map(|c| c.y_inner),
-        Field::YOuter => c.map(|c| c.y_outer),
-        Field::ChordFraction => c.map(|c| c.chord_fraction),
-        Field::Deflection => c.map(|c| c.deflection_deg),
-        Field::Effectiveness => c.and_then(|c| c.effectiveness),
-        Field::Alpha => Some(cond.alpha_deg),
-        Field::TargetCl => cond.target_cl,
-        Field::Speed => Some(cond.speed),
-        Field::Altitude => Some(cond.altitude),
-        Field::Airfoil | Field::AirfoilKey | Field::Name | Field::Kind => None,
+    match field.spec().value {
+        Value::Number { get, .. } | Value::Optional { get, .. } => get(wing, row),
+        Value::Text { .. } => None,
     }
 }
 
 fn text_value(wing: &Wing, row: usize, field: Field) -> Option<String> {
-    match field {
-        Field::Airfoil => wing.stations.get(row).map(|s| s.airfoil.clone()),
-        Field::AirfoilKey => airfoil_key(wing, row).map(str::to_string),
-        Field::Name => wing.controls.get(row).map(|c| c.name.clone()),
-        Field::Kind => wing.controls.get(row).map(|c| c.kind.as_str().to_string()),
-        _ => None,
+    match field.spec().value {
+        Value::Text { get, .. } => get(wing, row),
+        Value::Number { .. } | Value::Optional { .. } => None,
     }
 }
 
@@ -309,12 +155,7 @@ pub fn display(wing: &Wing, row: usize, field: Field) -> String {
     let Some(v) = number(wing, row, field) else {
         return "-".into();
     };
-    match field {
-        Field::Cd0 | Field::Cd1 | Field::Cd2 => fixed(v, 4),
-        Field::Speed | Field::Altitude => fixed(v, 1),
-        Field::Twist | Field::AlphaZeroLift | Field::Deflection | Field::Alpha => fixed(v, 2),
-        _ => fixed(v, 3),
-    }
+    fit_number(v, field.spec().digits, usize::from(field.width()))
 }
 
 /// A cell's full-precision text, to start the editor with.
@@ -354,135 +195,82 @@ fn parse_number(input: &str) -> Result<f64, String> {
 /// # Errors
 /// A short reason when the text is not a value for this field.
 pub fn set(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
-    if field.is_text() {
-        return set_text(wing, row, field, input.trim());
+    if from_table(wing, row, field) {
+        return Err(TABLE_FIELD.into());
     }
-    if field == Field::Effectiveness && input.trim().is_empty() {
-        if let Some(c) = wing.controls.get_mut(row) {
-            c.effectiveness = None;
+    let input = input.trim();
+    match field.spec().value {
+        Value::Text { set, .. } => {
+            if input.is_empty() && field != Field::Name {
+                return Err("must not be empty".into());
+            }
+            set(wing, row, input)
         }
-        return Ok(());
+        Value::Optional {
+            set,
+            empty_unsets: true,
+            ..
+        } if input.is_empty() => {
+            if let Some(slot) = set(wing, row) {
+                *slot = None;
+            }
+            Ok(())
+        }
+        Value::Number { .. } | Value::Optional { .. } => {
+            set_number(wing, row, field, parse_number(input)?);
+            Ok(())
+        }
     }
-    let v = parse_number(input)?;
-    set_number(wing, row, field, v);
-    Ok(())
 }
 
 fn set_number(wing: &mut Wing, row: usize, field: Field, v: f64) {
-    let key = airfoil_key(wing, row).map(str::to_string);
-    let s = wing.stations.get_mut(row);
-    let a = key.and_then(|k| wing.airfoils.get_mut(&k));
-    let c = wing.controls.get_mut(row);
-    let cond = &mut wing.condition;
-    let slot = match field {
-        Field::Y => s.map(|s| &mut s.y),
-        Field::Chord => s.map(|s| &mut s.chord),
-        Field::Twist => s.map(|s| &mut s.twist_deg),
-        Field::XLe => s.map(|s| &mut s.x_le),
-        Field::Z => s.map(|s| &mut s.z),
-        Field::LiftSlope => a.map(|a| &mut a.lift_slope),
-        Field::AlphaZeroLift => a.map(|a| &mut a.alpha_zero_lift_deg),
-        Field::ClMax => a.map(|a| &mut a.cl_max),
-        Field::Cd0 => a.map(|a| &mut a.cd0),
-        Field::Cd1 => a.map(|a| &mut a.cd1),
-        Field::Cd2 => a.map(|a| &mut a.cd2),
-        Field::YInner => c.map(|c| &mut c.y_inner),
-        Field::YOuter => c.map(|c| &mut c.y_outer),
-        Field::ChordFraction => c.map(|c| &mut c.chord_fraction),
-        Field::Deflection => c.map(|c| &mut c.deflection_deg),
-        Field::Effectiveness => c.map(|c| c.effectiveness.insert(v)),
-        Field::Alpha => Some(&mut cond.alpha_deg),
-        Field::TargetCl => Some(cond.target_cl.insert(v)),
-        Field::Speed => Some(&mut cond.speed),
-        Field::Altitude => Some(&mut cond.altitude),
-        Field::Airfoil | Field::AirfoilKey | Field::Name | Field::Kind => None,
-    };
-    if let Some(slot) = slot {
-        *slot = v;
+    match field.spec().value {
+        Value::Number { set, .. } => {
+            if let Some(slot) = set(wing, row) {
+                *slot = v;
+            }
+        }
+        Value::Optional { set, .. } => {
+            if let Some(slot) = set(wing, row) {
+                *slot = Some(v);
+            }
+        }
+        Value::Text { .. } => {}
     }
 }
 
-fn set_text(wing: &mut Wing, row: usize, field: Field, input: &str) -> Result<(), String> {
-    if input.is_empty() && field != Field::Name {
-        return Err("must not be empty".into());
-    }
-    match field {
-        Field::Airfoil => {
-            if let Some(s) = wing.stations.get_mut(row) {
-                s.airfoil = input.to_string();
-            }
-        }
-        Field::AirfoilKey => rename_airfoil(wing, row, input)?,
-        Field::Name => {
-            if let Some(c) = wing.controls.get_mut(row) {
-                c.name = input.to_string();
-            }
-        }
-        Field::Kind => {
-            let kind = match input {
-                "flap" => ControlKind::Flap,
-                "aileron" => ControlKind::Aileron,
-                other => return Err(format!("`{other}` is not `flap` or `aileron`")),
-            };
-            if let Some(c) = wing.controls.get_mut(row) {
-                c.kind = kind;
-            }
-        }
-        _ => {}
-    }
-    Ok(())
-}
+/// Why a table airfoil's derived field cannot be changed in the workbench.
+pub const TABLE_FIELD: &str =
+    "comes from the airfoil's table (read-only here; edit the table in the file)";
 
-/// Renames an airfoil and every station that uses it.
-fn rename_airfoil(wing: &mut Wing, row: usize, new: &str) -> Result<(), String> {
-    let Some(old) = airfoil_key(wing, row).map(str::to_string) else {
-        return Ok(());
-    };
-    if old == new {
-        return Ok(());
-    }
-    if wing.airfoils.contains_key(new) {
-        return Err(format!("an airfoil `{new}` already exists"));
-    }
-    if let Some(a) = wing.airfoils.remove(&old) {
-        wing.airfoils.insert(new.to_string(), a);
-    }
-    for s in wing.stations.iter_mut().filter(|s| s.airfoil == old) {
-        s.airfoil = new.to_string();
-    }
-    Ok(())
+/// True for a table airfoil's fields that its table gives (read-only here: only cl_max is
+/// the user's own).
+#[must_use]
+pub fn from_table(wing: &Wing, row: usize, field: Field) -> bool {
+    field.spec().from_table && fields::airfoil(wing, row).is_some_and(|a| a.table.is_some())
 }
 
 /// Moves a value by `steps` small steps (numbers), or to the next/previous choice (airfoil,
 /// kind). Returns false when the cell cannot be nudged.
 pub fn nudge(wing: &mut Wing, row: usize, field: Field, steps: i32) -> bool {
-    match field {
-        Field::Airfoil => cycle_airfoil(wing, row, steps),
-        Field::Kind => {
-            let Some(c) = wing.controls.get_mut(row) else {
-                return false;
-            };
-            c.kind = match c.kind {
-                ControlKind::Flap => ControlKind::Aileron,
-                ControlKind::Aileron => ControlKind::Flap,
-            };
-            true
-        }
-        Field::AirfoilKey | Field::Name => false,
-        _ => {
-            // An unset effectiveness starts from the thin-airfoil value the solver uses.
-            let base = number(wing, row, field)
-                .or_else(|| {
-                    let c = wing.controls.get(row)?;
-                    (field == Field::Effectiveness)
-                        .then(|| crate::solver::controls::effectiveness(c))
-                })
-                .unwrap_or(0.0);
-            let v = on_grid(base + f64::from(steps) * field.step(), field.step());
-            set_number(wing, row, field, v);
-            true
-        }
+    if from_table(wing, row, field) {
+        return false;
     }
+    let base = match field.spec().value {
+        Value::Text { cycle, .. } => return cycle.is_some_and(|cycle| cycle(wing, row, steps)),
+        Value::Number { get, .. } => get(wing, row),
+        Value::Optional {
+            get, unset_value, ..
+        } => get(wing, row).or_else(|| unset_value(wing, row)),
+    };
+    let step = field.step();
+    set_number(
+        wing,
+        row,
+        field,
+        on_grid(base.unwrap_or(0.0) + f64::from(steps) * step, step),
+    );
+    true
 }
 
 /// `v` rounded to a multiple of `step`, as the nearest double to that decimal (so a nudged
@@ -497,17 +285,57 @@ fn on_grid(v: f64, step: f64) -> f64 {
     }
 }
 
-fn cycle_airfoil(wing: &mut Wing, row: usize, steps: i32) -> bool {
-    let keys: Vec<String> = wing.airfoils.keys().cloned().collect();
-    let Some(s) = wing.stations.get_mut(row) else {
-        return false;
-    };
-    if keys.is_empty() {
-        return false;
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_field_table_is_in_field_order() {
+        for (i, (field, spec)) in Field::ALL.iter().zip(&SPECS).enumerate() {
+            assert_eq!(spec.field, *field, "row {i}");
+            assert_eq!(*field as usize, i);
+        }
     }
-    let n = i64::try_from(keys.len()).unwrap_or(1);
-    let i = keys.iter().position(|k| *k == s.airfoil).unwrap_or(0);
-    let next = (i64::try_from(i).unwrap_or(0) + i64::from(steps.signum())).rem_euclid(n);
-    s.airfoil = keys[usize::try_from(next).unwrap_or(0)].clone();
-    true
+
+    /// Every field of every sheet: its editor text sets back to the same wing, and a number
+    /// written to it is read back from it and changes nothing else.
+    #[test]
+    fn every_field_reads_back_what_it_sets_and_touches_nothing_else() {
+        let mut wing = crate::tui::starter::wing();
+        wing.condition.target_cl = Some(0.5);
+        wing.controls
+            .push(crate::verify::wings::aileron(0.5, 0.9, 0.25, 5.0));
+        for sheet in Sheet::ALL {
+            for field in columns(&wing, sheet, true) {
+                for row in 0..rows(&wing, sheet) {
+                    let mut copy = wing.clone();
+                    set(&mut copy, row, field, &edit_text(&wing, row, field)).expect("sets");
+                    assert_eq!(copy, wing, "{field:?} row {row}");
+                    if field.is_text() {
+                        continue;
+                    }
+                    set(&mut copy, row, field, "0.123").expect("sets");
+                    assert_eq!(number(&copy, row, field), Some(0.123), "{field:?}");
+                    set(&mut copy, row, field, &edit_text(&wing, row, field)).expect("sets");
+                    assert_eq!(copy, wing, "{field:?} row {row} touched another value");
+                }
+            }
+        }
+    }
+
+    #[test]
+    fn long_numbers_fit_their_cells_without_a_chopped_digit() {
+        let mut wing = crate::tui::starter::wing();
+        wing.stations[1].y = -999.999;
+        wing.stations[1].chord = 1000.0;
+        for (field, v) in [(Field::Y, -999.999), (Field::Chord, 1000.0)] {
+            let shown = display(&wing, 1, field);
+            assert!(
+                shown.chars().count() <= usize::from(field.width()),
+                "{shown}"
+            );
+            let back: f64 = shown.parse().expect("a whole number");
+            assert!((back - v).abs() <= 0.01 * v.abs(), "{shown} for {v}");
+        }
+    }
 }

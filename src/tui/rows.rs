@@ -20,7 +20,7 @@ pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option
         Sheet::Stations => add_station(wing, row, how),
         Sheet::Airfoils => {
             let key = airfoil_key(wing, row)?.to_string();
-            let airfoil: Airfoil = wing.airfoils.get(&key).copied().unwrap_or_default();
+            let airfoil: Airfoil = wing.airfoils.get(&key).cloned().unwrap_or_default();
             let new_key = (2..)
                 .map(|n| format!("{key}-{n}"))
                 .find(|k| !wing.airfoils.contains_key(k))?;

@@ -14,6 +14,7 @@ pub fn wing() -> Wing {
         cd0: 0.008,
         cd1: 0.0,
         cd2: 0.006,
+        ..Airfoil::default()
     };
     let station = |y: f64, chord: f64, twist_deg: f64| Station {
         y,

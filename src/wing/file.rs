@@ -10,11 +10,13 @@ use serde::Deserialize;
 use toml::Spanned;
 
 use super::validate::{self, Place};
-use super::{Airfoil, Condition, Control, ControlKind, Station, Wing};
+use super::{Condition, Control, ControlKind, Station, Wing};
 
+mod airfoil;
 mod edit;
 mod locate;
 
+use airfoil::{RawAirfoil, Reader, TableFiles};
 pub use edit::{edit_toml, tidy, tidy_numbers};
 use locate::Locator;
 
@@ -112,6 +114,57 @@ pub fn read_text(path: &Path) -> Result<String, ReadError> {
 /// # Errors
 /// The first problem in the text.
 pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
+    parse_with(text, path, &[])
+}
+
+/// [`parse`], taking a `table = "FILE.csv"` whose name matches one of `known` from memory
+/// instead of reading the file (CSV tables are otherwise read relative to `path`'s folder).
+fn parse_with(
+    text: &str,
+    path: &Path,
+    known: &[std::sync::Arc<super::table::SectionTable>],
+) -> Result<Wing, WingFileError> {
+    parse_spans(text, path, known).map(|(wing, _)| wing)
+}
+
+/// A wing file's text and where each value stood in it, to locate a problem found after
+/// reading (a target CL the solver cannot reach, say) the way the reader locates its own.
+pub struct Origin {
+    path: PathBuf,
+    text: String,
+    spans: Spans,
+}
+
+impl Origin {
+    /// The one-line error for `field` of `place`: at its value, or at its table's header
+    /// when the file does not give the key.
+    #[must_use]
+    pub fn error(&self, place: &Place, field: &'static str, reason: String) -> WingFileError {
+        let offset = self.spans.offset(place, field);
+        Locator::new(&self.text, &self.path).at(offset, place, field, reason)
+    }
+}
+
+/// Reads and validates a wing file, keeping its [`Origin`].
+///
+/// # Errors
+/// As [`read`].
+pub fn read_with_origin(path: &Path) -> Result<(Wing, Origin), ReadError> {
+    let text = read_text(path)?;
+    let (wing, spans) = parse_spans(&text, path, &[])?;
+    let origin = Origin {
+        path: path.to_path_buf(),
+        text,
+        spans,
+    };
+    Ok((wing, origin))
+}
+
+fn parse_spans(
+    text: &str,
+    path: &Path,
+    known: &[std::sync::Arc<super::table::SectionTable>],
+) -> Result<(Wing, Spans), WingFileError> {
     let locate = Locator::new(text, path);
     let raw: RawWing = toml::from_str(text).map_err(|e| locate.serde_error(&e))?;
     if let Some(condition) = &raw.condition {
@@ -120,14 +173,18 @@ pub fn parse(text: &str, path: &Path) -> Result<Wing, WingFileError> {
             return Err(locate.at(cl.span().start, &Place::Condition, "cl", reason));
         }
     }
-    let (wing, spans) = raw.into_wing(path);
+    let files = TableFiles {
+        folder: path.parent().map(Path::to_path_buf).unwrap_or_default(),
+        known,
+    };
+    let (wing, spans) = raw.into_wing(path, &locate, &files)?;
     // The first problem in reading order, so fixing a file top to bottom works.
     let first = validate::problems(&wing)
         .into_iter()
         .map(|p| (spans.offset(&p.place, p.field), p))
         .min_by_key(|(offset, _)| *offset);
     match first {
-        None => Ok(wing),
+        None => Ok((wing, spans)),
         Some((offset, p)) => Err(locate.at(offset, &p.place, p.field, p.reason)),
     }
 }
@@ -179,17 +236,6 @@ struct RawStation {
 }
 
 #[derive(Deserialize)]
-#[serde(deny_unknown_fields)]
-struct RawAirfoil {
-    lift_slope: Spanned<f64>,
-    alpha_zero_lift: Spanned<f64>,
-    cl_max: Spanned<f64>,
-    cd0: Spanned<f64>,
-    cd1: Option<Spanned<f64>>,
-    cd2: Option<Spanned<f64>>,
-}
-
-#[derive(Deserialize)]
 #[serde(deny_unknown_fields, rename_all = "lowercase")]
 enum RawKind {
     Flap,
@@ -235,7 +281,12 @@ fn take_or<T>(
 }
 
 impl RawWing {
-    fn into_wing(self, path: &Path) -> (Wing, Spans) {
+    fn into_wing(
+        self,
+        path: &Path,
+        locate: &Locator<'_>,
+        files: &TableFiles<'_>,
+    ) -> Result<(Wing, Spans), WingFileError> {
         let mut spans = Spans::default();
         let top = Place::Wing;
         let default_name = path
@@ -259,14 +310,16 @@ impl RawWing {
                 .unwrap_or(0);
             spans.fields.entry((Place::Wing, "station")).or_insert(at);
         }
+        let mut reader = Reader {
+            spans: &mut spans,
+            locate,
+            files,
+        };
         let airfoils = self
             .airfoil
             .into_iter()
-            .map(|(key, a)| {
-                let a = airfoil(&mut spans, &key, a);
-                (key, a)
-            })
-            .collect();
+            .map(|(key, a)| Ok((key.clone(), reader.airfoil(&key, a)?)))
+            .collect::<Result<_, WingFileError>>()?;
         let controls = self
             .control
             .into_iter()
@@ -284,7 +337,7 @@ impl RawWing {
             controls,
             condition,
         };
-        (wing, spans)
+        Ok((wing, spans))
     }
 }
 
@@ -299,20 +352,6 @@ fn station(spans: &mut Spans, i: usize, raw: Spanned<RawStation>) -> Station {
         airfoil: take(spans, &place, "airfoil", s.airfoil),
         x_le: take_or(spans, &place, "x_le", s.x_le, 0.0),
         z: take_or(spans, &place, "z", s.z, 0.0),
-    }
-}
-
-fn airfoil(spans: &mut Spans, key: &str, raw: Spanned<RawAirfoil>) -> Airfoil {
-    let place = Place::Airfoil(key.to_string());
-    spans.tables.insert(place.clone(), raw.span().start);
-    let a = raw.into_inner();
-    Airfoil {
-        lift_slope: take(spans, &place, "lift_slope", a.lift_slope),
-        alpha_zero_lift_deg: take(spans, &place, "alpha_zero_lift", a.alpha_zero_lift),
-        cl_max: take(spans, &place, "cl_max", a.cl_max),
-        cd0: take(spans, &place, "cd0", a.cd0),
-        cd1: take_or(spans, &place, "cd1", a.cd1, 0.0),
-        cd2: take_or(spans, &place, "cd2", a.cd2, 0.0),
     }
 }
 
@@ -372,12 +411,19 @@ pub fn to_toml(wing: &Wing) -> String {
     }
     for (key, a) in &wing.airfoils {
         let _ = writeln!(out, "\n[airfoil.{}]", table_key(key));
+        if let Some(table) = &a.table {
+            write_table(&mut out, table, a.cl_max);
+            continue;
+        }
         let _ = writeln!(out, "lift_slope = {}", num(a.lift_slope));
         let _ = writeln!(out, "alpha_zero_lift = {}", num(a.alpha_zero_lift_deg));
         let _ = writeln!(out, "cl_max = {}", num(a.cl_max));
         let _ = writeln!(out, "cd0 = {}", num(a.cd0));
         let _ = writeln!(out, "cd1 = {}", num(a.cd1));
         let _ = writeln!(out, "cd2 = {}", num(a.cd2));
+        if a.cm0 != 0.0 {
+            let _ = writeln!(out, "cm0 = {}", num(a.cm0));
+        }
     }
     for c in &wing.controls {
         let _ = writeln!(out, "\n[[control]]");
@@ -407,6 +453,25 @@ pub fn to_toml(wing: &Wing) -> String {
         let _ = writeln!(out, "roll_rate = {}", num(c.roll_rate));
     }
     out
+}
+
+/// A table airfoil's rows as inline arrays (also one read from a CSV file, so the text
+/// stands on its own wherever it is read), and cl_max when it is not the table's largest cl.
+fn write_table(out: &mut String, table: &super::table::SectionTable, cl_max: f64) {
+    let c = table.columns();
+    let array = |values: &[f64]| {
+        let cells: Vec<String> = values.iter().map(|&v| num(v)).collect();
+        format!("[{}]", cells.join(", "))
+    };
+    let _ = writeln!(out, "alpha = {}", array(&c.alpha_deg));
+    let _ = writeln!(out, "cl = {}", array(&c.cl));
+    let _ = writeln!(out, "cd = {}", array(&c.cd));
+    if let Some(cm) = &c.cm {
+        let _ = writeln!(out, "cm = {}", array(cm));
+    }
+    if cl_max != table.largest_cl() {
+        let _ = writeln!(out, "cl_max = {}", num(cl_max));
+    }
 }
 
 /// A TOML float that reads back to the same f64 (Rust's shortest round-trip form). A wing

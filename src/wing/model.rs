@@ -1,9 +1,14 @@
 //! Plain data for a wing described station by station.
 
 use std::collections::BTreeMap;
+use std::sync::Arc;
 
-/// Section (2-D) properties of one named airfoil.
-#[derive(Debug, Clone, Copy, PartialEq)]
+use super::blend::{self, Curve, TableBlend};
+use super::table::SectionTable;
+
+/// Section (2-D) properties of one named airfoil. A table airfoil carries its table; its
+/// linear fields are then those of the table's linear range (what the series method uses).
+#[derive(Debug, Clone, PartialEq)]
 pub struct Airfoil {
     /// Section lift-curve slope, per radian.
     pub lift_slope: f64,
@@ -17,6 +22,10 @@ pub struct Airfoil {
     pub cd1: f64,
     /// Quadratic term of the profile-drag polar.
     pub cd2: f64,
+    /// Section pitching-moment coefficient about the quarter chord, positive nose up.
+    pub cm0: f64,
+    /// The section data as a table, when the airfoil is given by one.
+    pub table: Option<Arc<SectionTable>>,
 }
 
 impl Default for Airfoil {
@@ -29,6 +38,27 @@ impl Default for Airfoil {
             cd0: 0.0,
             cd1: 0.0,
             cd2: 0.0,
+            cm0: 0.0,
+            table: None,
+        }
+    }
+}
+
+impl Airfoil {
+    /// A table airfoil: the linear fields from the table's linear range, cl_max the given
+    /// one or else the table's largest cl.
+    #[must_use]
+    pub fn from_table(table: SectionTable, cl_max: Option<f64>) -> Self {
+        let linear = *table.linear();
+        Self {
+            lift_slope: linear.lift_slope,
+            alpha_zero_lift_deg: linear.alpha_zero_lift_deg,
+            cl_max: cl_max.unwrap_or_else(|| table.largest_cl()),
+            cd0: linear.cd0,
+            cd1: linear.cd1,
+            cd2: linear.cd2,
+            cm0: linear.cm0,
+            table: Some(Arc::new(table)),
         }
     }
 }
@@ -118,7 +148,7 @@ impl Default for Condition {
 }
 
 /// Section properties at one spanwise position, interpolated between stations.
-#[derive(Debug, Clone, Copy, PartialEq)]
+#[derive(Debug, Clone, PartialEq)]
 pub struct Section {
     /// Chord, m.
     pub chord: f64,
@@ -128,6 +158,9 @@ pub struct Section {
     pub airfoil: BlendedAirfoil,
     /// Leading-edge offset aft, m.
     pub x_le: f64,
+    /// The stations' curves where a table airfoil is involved (`None`: both linear, and
+    /// `airfoil` says it all).
+    pub curves: Option<Arc<TableBlend>>,
 }
 
 /// Where `y` falls among `items` at increasing positions `y_of(item)` (at least two): the
@@ -145,12 +178,41 @@ impl Section {
     /// Section lift coefficient and its slope dcl/dalpha (per radian) at effective angle of
     /// attack `alpha_eff` (radians, of the section's chord line, control shifts included):
     /// the linear section cl = a0 (alpha_eff - alpha_L0) (thin-airfoil theory; Anderson,
-    /// *Fundamentals of Aerodynamics*, sec. 4.8).
+    /// *Fundamentals of Aerodynamics*, sec. 4.8), or, where a table airfoil is involved, the
+    /// blend of the two stations' interpolated curves ([`TableBlend::lift`]).
     #[must_use]
     pub fn lift(&self, alpha_eff: f64) -> (f64, f64) {
-        let a0 = self.airfoil.lift_slope;
-        let zero_lift = self.airfoil.alpha_zero_lift_deg.to_radians();
-        (a0 * (alpha_eff - zero_lift), a0)
+        match &self.curves {
+            Some(b) => b.lift(alpha_eff),
+            None => Curve::of(&self.airfoil).lift(alpha_eff),
+        }
+    }
+
+    /// Section profile-drag coefficient at `alpha_eff` (radians): the polar
+    /// cd0 + cd1 cl + cd2 cl^2 at the section's cl, or the tables' blended cd.
+    #[must_use]
+    pub fn profile_drag(&self, alpha_eff: f64) -> f64 {
+        match &self.curves {
+            Some(b) => b.drag(alpha_eff),
+            None => Curve::of(&self.airfoil).drag(alpha_eff),
+        }
+    }
+
+    /// Section pitching-moment coefficient about the quarter chord at `alpha_eff` (radians),
+    /// positive nose up: `cm0`, or the tables' blended cm.
+    #[must_use]
+    pub fn moment(&self, alpha_eff: f64) -> f64 {
+        match &self.curves {
+            Some(b) => b.moment(alpha_eff),
+            None => self.airfoil.cm0,
+        }
+    }
+
+    /// This section as an airfoil of its own (a table of the blended values where tables are
+    /// involved).
+    #[must_use]
+    pub fn to_airfoil(&self) -> Airfoil {
+        blend::section_airfoil(self)
     }
 
     /// Linear blend, fraction `t` of the way from `self` to `other` (the rule between stations).
@@ -169,12 +231,17 @@ impl Section {
                 cd0: mix(fa.cd0, fb.cd0),
                 cd1: mix(fa.cd1, fb.cd1),
                 cd2: mix(fa.cd2, fb.cd2),
+                cm0: mix(fa.cm0, fb.cm0),
+                table: None,
             },
+            curves: TableBlend::between(self, other, t),
         }
     }
 }
 
-/// Airfoil properties blended linearly between two stations' airfoils.
+/// Airfoil properties blended linearly between two stations' airfoils (a table airfoil's
+/// linear parameters being those of its linear range; the tables themselves blend in
+/// [`Section::curves`]).
 pub type BlendedAirfoil = Airfoil;
 
 /// A whole wing: stations, their airfoils, control surfaces and a default condition.
@@ -219,11 +286,13 @@ impl Wing {
     /// The section at a station itself, its airfoil looked up by key.
     #[must_use]
     pub fn station_section(&self, station: &Station) -> Section {
+        let airfoil = self.airfoil_or_default(&station.airfoil);
         Section {
             chord: station.chord,
             twist: station.twist_deg.to_radians(),
             x_le: station.x_le,
-            airfoil: self.airfoil_or_default(&station.airfoil),
+            curves: airfoil.table.as_ref().map(TableBlend::single),
+            airfoil,
         }
     }
 

@@ -3,11 +3,27 @@
 
 use std::fmt;
 
-use super::{Geometry, Wing};
+use super::{Airfoil, Geometry, Wing};
+use crate::text::{clip, readable, QUOTE_CHARS};
 
 /// The largest angle of attack (either sign), degrees, in a file, a flag or a solution: past
-/// it the angle no longer describes a wing in forward flight.
+/// it the angle no longer describes a wing in forward flight. Also the limit on twist,
+/// zero-lift angle and control deflection.
 pub const MAX_ALPHA_DEG: f64 = 90.0;
+/// The largest length (|y|, chord, |x_le|, |z|), m: ten times any wing built.
+pub const MAX_LENGTH_M: f64 = 1000.0;
+/// The smallest span and nonzero chord, m: below a millimetre the planform's ratios (aspect
+/// ratio, taper) lose their meaning in floating point.
+pub const MIN_LENGTH_M: f64 = 0.001;
+/// The largest true airspeed, m/s (about Mach 3; above Mach 0.3 the results are warned).
+pub const MAX_SPEED_M_S: f64 = 1000.0;
+/// The largest section lift slope, per radian: twice the thin-airfoil 2 pi, so a slope given
+/// per degree times 57.3 twice over, or any other unit slip, is caught.
+pub const MAX_LIFT_SLOPE: f64 = 12.5;
+/// The largest `cl_max` of a section: beyond any high-lift section.
+pub const MAX_CL: f64 = 10.0;
+/// The largest `cd0` (a flat plate across the flow has about 2) and |cd1|, |cd2|.
+pub const MAX_DRAG_TERM: f64 = 10.0;
 
 /// Where in a wing a problem sits.
 #[derive(Debug, Clone, PartialEq, Eq, Hash, PartialOrd, Ord)]
@@ -29,7 +45,7 @@ impl fmt::Display for Place {
         match self {
             Self::Wing => write!(f, "wing"),
             Self::Station(i) => write!(f, "station {}", i + 1),
-            Self::Airfoil(key) => write!(f, "airfoil {key}"),
+            Self::Airfoil(key) => write!(f, "airfoil {}", clip(key, QUOTE_CHARS)),
             Self::Control(i) => write!(f, "control {}", i + 1),
             Self::Condition => write!(f, "condition"),
         }
@@ -79,11 +95,56 @@ fn finite(out: &mut Vec<Problem>, place: &Place, field: &'static str, value: f64
         out.push(problem(
             place.clone(),
             field,
-            format!("must be a finite number (got {value})"),
+            format!("must be a finite number (got {})", readable(value)),
         ));
         false
     }
 }
+
+/// A finite value within `-limit..=limit`; pushes the problem otherwise.
+fn within(
+    out: &mut Vec<Problem>,
+    place: &Place,
+    field: &'static str,
+    value: f64,
+    (limit, unit): (f64, &str),
+) -> bool {
+    if !finite(out, place, field, value) {
+        return false;
+    }
+    let ok = value.abs() <= limit;
+    if !ok {
+        out.push(problem(
+            place.clone(),
+            field,
+            format!(
+                "must be within -{limit} to {limit}{unit} (got {})",
+                readable(value)
+            ),
+        ));
+    }
+    ok
+}
+
+/// A value (already checked finite and for its lower bound) at most `limit`.
+fn at_most(
+    out: &mut Vec<Problem>,
+    place: &Place,
+    field: &'static str,
+    value: f64,
+    (limit, unit): (f64, &str),
+) {
+    if value > limit {
+        out.push(problem(
+            place.clone(),
+            field,
+            format!("must be at most {limit}{unit} (got {})", readable(value)),
+        ));
+    }
+}
+
+const LENGTH: (f64, &str) = (MAX_LENGTH_M, " m");
+const ANGLE: (f64, &str) = (MAX_ALPHA_DEG, " deg");
 
 fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
     let n = wing.stations.len();
@@ -106,25 +167,26 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
     for (i, s) in wing.stations.iter().enumerate() {
         let place = Place::Station(i);
         let outermost = i + 1 == n || (!wing.symmetric && i == 0);
-        if finite(out, &place, "y", s.y) {
+        if within(out, &place, "y", s.y, LENGTH) {
             if i == 0 && wing.symmetric && s.y != 0.0 {
                 out.push(problem(
                     place.clone(),
                     "y",
                     format!(
                         "a symmetric wing's first station must be at y = 0 (got {})",
-                        s.y
+                        readable(s.y)
                     ),
                 ));
             }
-            if i > 0 && wing.stations[i - 1].y.is_finite() && s.y <= wing.stations[i - 1].y {
+            let previous = i.checked_sub(1).map(|j| wing.stations[j].y);
+            if let Some(before) = previous.filter(|b| b.is_finite() && s.y <= *b) {
                 out.push(problem(
                     place.clone(),
                     "y",
                     format!(
                         "must be greater than the previous station's y = {} (got {})",
-                        wing.stations[i - 1].y,
-                        s.y
+                        readable(before),
+                        readable(s.y)
                     ),
                 ));
             }
@@ -134,7 +196,7 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 out.push(problem(
                     place.clone(),
                     "chord",
-                    format!("must be > 0 (got {})", s.chord),
+                    format!("must be > 0 (got {})", readable(s.chord)),
                 ));
             } else if s.chord == 0.0 && !outermost {
                 out.push(problem(
@@ -142,11 +204,21 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                     "chord",
                     "may be 0 only at the outermost station (a pointed tip)",
                 ));
+            } else if s.chord > 0.0 && s.chord < MIN_LENGTH_M {
+                out.push(problem(
+                    place.clone(),
+                    "chord",
+                    format!(
+                        "must be 0 (a pointed tip) or at least {MIN_LENGTH_M} m (got {})",
+                        readable(s.chord)
+                    ),
+                ));
             }
+            at_most(out, &place, "chord", s.chord, LENGTH);
         }
-        finite(out, &place, "twist", s.twist_deg);
-        finite(out, &place, "x_le", s.x_le);
-        finite(out, &place, "z", s.z);
+        within(out, &place, "twist", s.twist_deg, ANGLE);
+        within(out, &place, "x_le", s.x_le, LENGTH);
+        within(out, &place, "z", s.z, LENGTH);
         if !wing.airfoils.contains_key(&s.airfoil) {
             let known: Vec<&str> = wing.airfoils.keys().map(String::as_str).collect();
             out.push(problem(
@@ -154,31 +226,76 @@ fn station_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 "airfoil",
                 format!(
                     "unknown airfoil `{}`{}",
-                    s.airfoil,
+                    clip(&s.airfoil, QUOTE_CHARS),
                     suggestion(&s.airfoil, &known)
                 ),
             ));
         }
     }
+    span_problem(wing, out);
 }
 
-/// " (did you mean `x`?)" for the closest candidate, or a list of the known ones.
-#[must_use]
-pub fn suggestion(word: &str, candidates: &[&str]) -> String {
-    match did_you_mean(word, candidates) {
-        Some(best) => format!(" (did you mean `{best}`?)"),
-        None if candidates.is_empty() => " (no [airfoil.*] tables are defined)".to_string(),
-        None => format!(" (known: {})", candidates.join(", ")),
+/// A span too small to be a wing (see [`MIN_LENGTH_M`]), at the outermost station's `y`.
+fn span_problem(wing: &Wing, out: &mut Vec<Problem>) {
+    let (Some(first), Some(last)) = (wing.stations.first(), wing.stations.last()) else {
+        return;
+    };
+    let span = if wing.symmetric {
+        2.0 * last.y
+    } else {
+        last.y - first.y
+    };
+    if wing.stations.len() >= 2 && span.is_finite() && span > 0.0 && span < MIN_LENGTH_M {
+        out.push(problem(
+            Place::Station(wing.stations.len() - 1),
+            "y",
+            format!(
+                "the span must be at least {MIN_LENGTH_M} m (got {})",
+                readable(span)
+            ),
+        ));
     }
 }
+
+/// " (did you mean `x`?)" for the closest candidate, or a few of the known ones.
+#[must_use]
+pub fn suggestion(word: &str, candidates: &[&str]) -> String {
+    const SHOWN: usize = 5;
+    match did_you_mean(word, candidates) {
+        Some(best) => format!(" (did you mean `{}`?)", clip(best, QUOTE_CHARS)),
+        None if candidates.is_empty() => " (no [airfoil.*] tables are defined)".to_string(),
+        None => {
+            let shown: Vec<String> = candidates
+                .iter()
+                .take(SHOWN)
+                .map(|c| clip(c, QUOTE_CHARS / 4))
+                .collect();
+            let more = candidates.len().saturating_sub(SHOWN);
+            let rest = if more > 0 {
+                format!(" and {more} more")
+            } else {
+                String::new()
+            };
+            format!(" (known: {}{rest})", shown.join(", "))
+        }
+    }
+}
+
+/// Longest word (and candidate) compared for a did-you-mean: a typo of a key is short, and
+/// the comparison grows with the product of the lengths, so a crafted file cannot stall it.
+const SUGGEST_CHARS: usize = 64;
 
 /// The candidate closest to a misspelt word, when one is close enough to be a likely typo.
 #[must_use]
 pub fn did_you_mean<'c>(word: &str, candidates: &[&'c str]) -> Option<&'c str> {
+    if word.len() > SUGGEST_CHARS {
+        return None;
+    }
     // 0.7 on Jaro-Winkler accepts one or two slips in a short key and rejects unrelated
     // words (chosen by trying the keys of the format; no source).
     candidates
         .iter()
+        .filter(|c| c.len() <= SUGGEST_CHARS)
         .map(|c| (strsim::jaro_winkler(word, c), *c))
         .max_by(|a, b| a.0.total_cmp(&b.0))
         .filter(|(score, _)| *score >= 0.7)
@@ -188,30 +305,90 @@ pub fn did_you_mean<'c>(word: &str, candidates: &[&'c str]) -> Option<&'c str> {
 fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
     for (key, a) in &wing.airfoils {
         let place = Place::Airfoil(key.clone());
-        if finite(out, &place, "lift_slope", a.lift_slope) && a.lift_slope <= 0.0 {
-            out.push(problem(
-                place.clone(),
+        if a.table.is_some() {
+            // The table was checked as it was read; only cl_max is the user's own.
+            cl_max_problems(out, &place, a.cl_max);
+            continue;
+        }
+        if finite(out, &place, "lift_slope", a.lift_slope) {
+            if a.lift_slope <= 0.0 {
+                out.push(problem(
+                    place.clone(),
+                    "lift_slope",
+                    format!("must be > 0 per radian (got {})", readable(a.lift_slope)),
+                ));
+            }
+            at_most(
+                out,
+                &place,
                 "lift_slope",
-                format!("must be > 0 per radian (got {})", a.lift_slope),
-            ));
+                a.lift_slope,
+                (MAX_LIFT_SLOPE, " per radian"),
+            );
         }
-        finite(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg);
-        if finite(out, &place, "cl_max", a.cl_max) && a.cl_max <= 0.0 {
-            out.push(problem(
-                place.clone(),
-                "cl_max",
-                format!("must be > 0 (got {})", a.cl_max),
-            ));
-        }
-        if finite(out, &place, "cd0", a.cd0) && a.cd0 < 0.0 {
+        within(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg, ANGLE);
+        let cl_max_ok = cl_max_problems(out, &place, a.cl_max);
+        let cd0_ok = finite(out, &place, "cd0", a.cd0) && a.cd0 >= 0.0;
+        if a.cd0 < 0.0 {
             out.push(problem(
                 place.clone(),
                 "cd0",
-                format!("must be >= 0 (got {})", a.cd0),
+                format!("must be >= 0 (got {})", readable(a.cd0)),
             ));
+        } else if cd0_ok {
+            at_most(out, &place, "cd0", a.cd0, (MAX_DRAG_TERM, ""));
         }
-        finite(out, &place, "cd1", a.cd1);
-        finite(out, &place, "cd2", a.cd2);
+        let cd1_ok = within(out, &place, "cd1", a.cd1, (MAX_DRAG_TERM, ""));
+        let cd2_ok = within(out, &place, "cd2", a.cd2, (MAX_DRAG_TERM, ""));
+        if cl_max_ok && cd0_ok && cd1_ok && cd2_ok {
+            polar_problems(&place, a, out);
+        }
+        finite(out, &place, "cm0", a.cm0);
+    }
+}
+
+/// cl_max finite, above 0 and at most [`MAX_CL`]; true when it is usable.
+fn cl_max_problems(out: &mut Vec<Problem>, place: &Place, cl_max: f64) -> bool {
+    let ok = finite(out, place, "cl_max", cl_max) && cl_max > 0.0;
+    if cl_max <= 0.0 {
+        out.push(problem(
+            place.clone(),
+            "cl_max",
+            format!("must be > 0 (got {})", readable(cl_max)),
+        ));
+    } else if ok {
+        at_most(out, place, "cl_max", cl_max, (MAX_CL, ""));
+    }
+    ok
+}
+
+/// The profile drag polar must not go negative anywhere a section flies, |cl| <= cl_max:
+/// a negative cd would be a thrust.
+fn polar_problems(place: &Place, a: &Airfoil, out: &mut Vec<Problem>) {
+    let cd = |cl: f64| a.cd0 + a.cd1 * cl + a.cd2 * cl * cl;
+    let mut candidates = vec![-a.cl_max, a.cl_max];
+    if a.cd2 > 0.0 {
+        let vertex = -a.cd1 / (2.0 * a.cd2);
+        if vertex.abs() <= a.cl_max {
+            candidates.push(vertex);
+        }
+    }
+    let lowest = candidates
+        .into_iter()
+        .map(|cl| (cd(cl), cl))
+        .min_by(|x, y| x.0.total_cmp(&y.0));
+    if let Some((least, at)) = lowest.filter(|(least, _)| *least < 0.0) {
+        let field = if a.cd2 < 0.0 { "cd2" } else { "cd1" };
+        out.push(problem(
+            place.clone(),
+            field,
+            format!(
+                "the polar gives cd = {} at cl = {}; cd0 + cd1*cl + cd2*cl^2 must be >= 0 \
+                 for |cl| <= cl_max",
+                crate::text::significant(least, 4),
+                crate::text::significant(at, 4)
+            ),
+        ));
     }
 }
 
@@ -226,7 +403,10 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
             out.push(problem(
                 place.clone(),
                 "y_inner",
-                format!("must be >= 0 on the right half (got {})", c.y_inner),
+                format!(
+                    "must be >= 0 on the right half (got {})",
+                    readable(c.y_inner)
+                ),
             ));
         }
         if inner_ok && outer_ok && c.y_inner >= c.y_outer {
@@ -235,7 +415,8 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 "y_outer",
                 format!(
                     "must be greater than y_inner = {} (got {})",
-                    c.y_inner, c.y_outer
+                    readable(c.y_inner),
+                    readable(c.y_outer)
                 ),
             ));
         }
@@ -244,8 +425,9 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 place.clone(),
                 "y_outer",
                 format!(
-                    "lies outside the span: the tip is at y = {reach} (got {})",
-                    c.y_outer
+                    "lies outside the span: the tip is at y = {} (got {})",
+                    readable(reach),
+                    readable(c.y_outer)
                 ),
             ));
         }
@@ -257,18 +439,22 @@ fn control_problems(wing: &Wing, out: &mut Vec<Problem>) {
                 "chord_fraction",
                 format!(
                     "must be between 0 and 1, exclusive (got {})",
-                    c.chord_fraction
+                    readable(c.chord_fraction)
                 ),
             ));
         }
-        finite(out, &place, "deflection", c.deflection_deg);
+        within(out, &place, "deflection", c.deflection_deg, ANGLE);
         if let Some(e) = c.effectiveness {
-            if finite(out, &place, "effectiveness", e) && e <= 0.0 {
-                out.push(problem(
-                    place.clone(),
-                    "effectiveness",
-                    format!("must be > 0 (got {e})"),
-                ));
+            if finite(out, &place, "effectiveness", e) {
+                if e <= 0.0 {
+                    out.push(problem(
+                        place.clone(),
+                        "effectiveness",
+                        format!("must be > 0 (got {})", readable(e)),
+                    ));
+                }
+                // Thin-airfoil theory gives at most 1 (a control as deep as the chord).
+                at_most(out, &place, "effectiveness", e, (1.0, ""));
             }
         }
     }
@@ -283,7 +469,7 @@ fn condition_problems(wing: &Wing, out: &mut Vec<Problem>) {
 pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
     let mut out = Vec::new();
     let place = Place::Condition;
-    finite(&mut out, &place, "alpha", c.alpha_deg);
+    within(&mut out, &place, "alpha", c.alpha_deg, ANGLE);
     if let Some(cl) = c.target_cl {
         finite(&mut out, &place, "cl", cl);
     }
@@ -292,15 +478,21 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
         out.push(problem(
             place.clone(),
             "roll_rate",
-            format!("must be within -1 to 1 (pb/2V; got {})", c.roll_rate),
+            format!(
+                "must be within -1 to 1 (pb/2V; got {})",
+                readable(c.roll_rate)
+            ),
         ));
     }
-    if finite(&mut out, &place, "speed", c.speed) && c.speed <= 0.0 {
-        out.push(problem(
-            place.clone(),
-            "speed",
-            format!("must be > 0 m/s (got {})", c.speed),
-        ));
+    if finite(&mut out, &place, "speed", c.speed) {
+        if c.speed <= 0.0 {
+            out.push(problem(
+                place.clone(),
+                "speed",
+                format!("must be > 0 m/s (got {})", readable(c.speed)),
+            ));
+        }
+        at_most(&mut out, &place, "speed", c.speed, (MAX_SPEED_M_S, " m/s"));
     }
     if finite(&mut out, &place, "altitude", c.altitude)
         && !(crate::atmosphere::MIN_ALTITUDE..=crate::atmosphere::MAX_ALTITUDE)
@@ -313,7 +505,7 @@ pub fn condition_rules(c: &super::Condition) -> Vec<Problem> {
                 "must be within the standard atmosphere, {} to {} m (got {})",
                 crate::atmosphere::MIN_ALTITUDE,
                 crate::atmosphere::MAX_ALTITUDE,
-                c.altitude
+                readable(c.altitude)
             ),
         ));
     }

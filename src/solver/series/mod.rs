@@ -96,6 +96,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let integrals = integrals::integrate(&sections, map, geometry.area, pair, &edges);
     let mut warnings = validate::warnings(wing, &geometry);
     warnings.extend(own_warnings(&geometry));
+    warnings.extend(linear_table_notes(wing));
     let scales = (geometry.span, geometry.mean_chord);
     let tips = (
         sections.at(map.y_mid - map.half_span).chord,
@@ -141,6 +142,13 @@ fn own_warnings(geometry: &Geometry) -> Vec<String> {
         ));
     }
     out
+}
+
+/// This method is linear: each table airfoil stands in by its linear range.
+fn linear_table_notes(wing: &Wing) -> Vec<String> {
+    let tables = wing.airfoils.iter();
+    let notes = tables.filter_map(|(key, a)| Some(a.table.as_ref()?.linear_note(key)));
+    notes.collect()
 }
 
 /// The collocation points of a wing and the inputs of its system there.
@@ -330,10 +338,11 @@ impl Prepared {
     /// The angle of attack (radians) that gives lift coefficient `cl`.
     ///
     /// # Errors
-    /// [`SolveError::Unreachable`] when the lift slope is zero.
+    /// [`SolveError::Unreachable`] when the lift slope is zero: below a billionth of the
+    /// sections' mean slope (relative, so small but real slopes are not called zero).
     pub fn alpha_for_cl(&self, cl: f64) -> Result<f64, SolveError> {
         let slope = self.per_alpha[0];
-        if slope.abs() < 1e-14 {
+        if self.cl_alpha().abs() <= 1e-9 * self.integrals.mean_lift_slope {
             return Err(SolveError::Unreachable(cl));
         }
         Ok((cl / (PI * self.geometry.aspect_ratio) - self.at_zero[0]) / slope)

@@ -153,7 +153,11 @@ fn items(app: &App) -> Vec<Item> {
         .iter()
         .enumerate()
         .map(|(col, &field)| {
-            let (name, unit) = label_and_unit(field);
+            let name = label(field);
+            let unit = match field.unit() {
+                "" => String::new(),
+                unit => format!(" {unit}"),
+            };
             let shown = cells::display(&doc.wing, 0, field).chars().count();
             let width = match editing(app, col) {
                 Some(editor) => shown.max(editor.text().chars().count() + 1).max(EDIT_WIDTH),
@@ -163,7 +167,7 @@ fn items(app: &App) -> Vec<Item> {
                 pieces: vec![
                     Piece::Text(format!("{name} "), label_style),
                     Piece::Value(col, field, width),
-                    Piece::Text(unit.to_string(), t.dim),
+                    Piece::Text(unit, t.dim),
                 ],
                 derived: false,
             }
@@ -198,13 +202,13 @@ fn area_text(area: f64) -> String {
     fixed(area, digits)
 }
 
-/// A condition value's name before it and its unit after it.
-const fn label_and_unit(field: Field) -> (&'static str, &'static str) {
+/// A condition value's short name before it (its unit, from the field table, comes after).
+const fn label(field: Field) -> &'static str {
     match field {
-        Field::Alpha => ("alpha", " deg"),
-        Field::TargetCl => ("target CL", ""),
-        Field::Speed => ("V", " m/s"),
-        _ => ("alt", " m"),
+        Field::Alpha => "alpha",
+        Field::TargetCl => "target CL",
+        Field::Speed => "V",
+        _ => "alt",
     }
 }
 

@@ -5,7 +5,8 @@ use std::path::Path;
 
 use toml_edit::{ArrayOfTables, DocumentMut, Item, Key, Table, Value};
 
-use super::{parse, to_toml};
+use super::{parse_with, to_toml};
+use crate::wing::table::{SectionTable, TableSource};
 use crate::wing::{Airfoil, Condition, Control, Station, Wing};
 
 /// `original` (a wing file's text) changed to describe `wing`: values that differ are
@@ -15,12 +16,20 @@ use crate::wing::{Airfoil, Condition, Control, Station, Wing};
 /// `wing`, gives [`to_toml`] instead.
 #[must_use]
 pub fn edit_toml(original: &str, wing: &Wing) -> String {
+    // The wing's own tables stand in for the CSV files the text names: the text is read here
+    // without knowing where it lives.
+    let known: Vec<_> = wing
+        .airfoils
+        .values()
+        .filter_map(|a| a.table.clone())
+        .collect();
+    let parse = |text: &str, path: &str| parse_with(text, Path::new(path), &known);
     let edited = (|| {
-        let old = parse(original, Path::new("original.toml")).ok()?;
+        let old = parse(original, "original.toml").ok()?;
         let mut doc: DocumentMut = original.parse().ok()?;
         edit(&mut doc, &old, wing)?;
         let text = doc.to_string();
-        let again = parse(&text, Path::new("edited.toml")).ok()?;
+        let again = parse(&text, "edited.toml").ok()?;
         (again == as_written(wing)).then_some(text)
     })();
     edited.unwrap_or_else(|| to_toml(wing))
@@ -269,6 +278,11 @@ pub fn tidy_numbers(wing: &Wing) -> Wing {
         }
     }
     for a in w.airfoils.values_mut() {
+        if a.table.is_some() {
+            // The rest is the table's own fit, read back exactly as it is.
+            a.cl_max = tidy(a.cl_max);
+            continue;
+        }
         for v in [
             &mut a.lift_slope,
             &mut a.alpha_zero_lift_deg,
@@ -276,6 +290,7 @@ pub fn tidy_numbers(wing: &Wing) -> Wing {
             &mut a.cd0,
             &mut a.cd1,
             &mut a.cd2,
+            &mut a.cm0,
         ] {
             *v = tidy(*v);
         }
@@ -394,6 +409,10 @@ fn control(t: &mut Table, old: Option<&Control>, new: &Control) {
 }
 
 fn airfoil_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil) {
+    if let Some(table) = &new.table {
+        table_fields(t, old, new, table);
+        return;
+    }
     put(t, "lift_slope", old.map(|o| o.lift_slope), new.lift_slope);
     let zero_lift = (old.map(|o| o.alpha_zero_lift_deg), new.alpha_zero_lift_deg);
     put(t, "alpha_zero_lift", zero_lift.0, zero_lift.1);
@@ -401,6 +420,32 @@ fn airfoil_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil) {
     put(t, "cd0", old.map(|o| o.cd0), new.cd0);
     put(t, "cd1", Some(old.map_or(0.0, |o| o.cd1)), new.cd1);
     put(t, "cd2", Some(old.map_or(0.0, |o| o.cd2)), new.cd2);
+    put(t, "cm0", Some(old.map_or(0.0, |o| o.cm0)), new.cm0);
+}
+
+/// A table airfoil: its table is written only into a fresh `[airfoil.*]` table (the
+/// workbench cannot edit the rows), as the file it was read from or as inline arrays; cl_max
+/// only when it differs from what the file already gives (the table's largest cl when unset).
+fn table_fields(t: &mut Table, old: Option<&Airfoil>, new: &Airfoil, table: &SectionTable) {
+    let old = old.filter(|o| o.table.is_some());
+    if old.is_none() {
+        match &table.source {
+            TableSource::File(name) => put(t, "table", None, name.as_str()),
+            TableSource::Inline => {
+                let c = table.columns();
+                let arrays = [("alpha", Some(&c.alpha_deg)), ("cl", Some(&c.cl))];
+                let rest = [("cd", Some(&c.cd)), ("cm", c.cm.as_ref())];
+                for (key, values) in arrays.into_iter().chain(rest) {
+                    if let Some(values) = values {
+                        let array: toml_edit::Array = values.iter().copied().collect();
+                        t.insert(key, Item::Value(Value::Array(array)));
+                    }
+                }
+            }
+        }
+    }
+    let was = old.map_or_else(|| table.largest_cl(), |o| o.cl_max);
+    put(t, "cl_max", Some(was), new.cl_max);
 }
 
 /// The `[airfoil.*]` tables: edited in place, removed, added at the end; one removed and one

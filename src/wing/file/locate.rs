@@ -14,6 +14,7 @@ use toml::Spanned;
 
 use super::super::validate::{did_you_mean, Place};
 use super::WingFileError;
+use crate::text::{clip, QUOTE_CHARS};
 
 /// Names places and turns offsets into 1-based line:column for one file's text.
 pub(super) struct Locator<'a> {
@@ -54,8 +55,10 @@ impl<'a> Locator<'a> {
             line,
             column,
             place: one_line(&place.to_string()),
-            field: one_line(field),
-            reason: one_line(&reason),
+            field: one_line(&clip(field, QUOTE_CHARS)),
+            // The parts quoted from the file are clipped where they are quoted; this bounds
+            // whatever else a message could carry.
+            reason: one_line(&clip(&reason, 3 * QUOTE_CHARS)),
         }
     }
 
@@ -65,6 +68,10 @@ impl<'a> Locator<'a> {
         let offset = e.span().map_or(0, |s| s.start);
         let message = e.message();
         let place = self.place_of(offset);
+        if let Some(at) = self.kind_as_table(offset) {
+            let reason = "must be \"flap\" or \"aileron\" in quotes (got an inline table)";
+            return self.at(at, &place, "kind", reason.into());
+        }
         if let Some((key, expected)) = unknown_key(message) {
             let known: Vec<&str> = expected.iter().map(String::as_str).collect();
             let reason = match did_you_mean(&key, &known) {
@@ -92,10 +99,76 @@ impl<'a> Locator<'a> {
             .or_else(|| self.header_key(offset))
             .or_else(|| self.line_key(offset))
             .unwrap_or_else(|| "toml".to_string());
-        let reason = wrong_type(message, &field)
-            .or_else(|| self.missing_value(offset))
-            .unwrap_or_else(|| syntax(message));
+        if let Some(reason) = wrong_type(message, &field, self.value_kind(offset)) {
+            return self.at(offset, &place, &field, reason);
+        }
+        if let Some((at, reason)) = self.bad_character(offset) {
+            let field = self.line_key(at).unwrap_or_else(|| "toml".to_string());
+            return self.at(at, &place, &field, reason);
+        }
+        let reason = self
+            .missing_value(offset)
+            .unwrap_or_else(|| syntax(message, self.text.get(offset..).unwrap_or("")));
         self.at(offset, &place, &field, reason)
+    }
+
+    /// `kind = { ... }`: an inline table where the control kind's text belongs (serde reads
+    /// its first key as the kind). The offset of the `{`.
+    fn kind_as_table(&self, offset: usize) -> Option<usize> {
+        let start = self.text.get(..offset)?.rfind('\n').map_or(0, |i| i + 1);
+        let line = self.text[start..].lines().next()?;
+        let (key, value) = line.split_once('=')?;
+        let brace = value.trim_start();
+        (key.trim() == "kind" && brace.starts_with('{'))
+            .then(|| start + line.len() - value.len() + (value.len() - brace.len()))
+    }
+
+    /// What the value at `offset` is when serde calls it a map: TOML's dates and times are
+    /// read as tables inside the parser, and an inline table is one.
+    fn value_kind(&self, offset: usize) -> Option<&'static str> {
+        let value = self.text.get(offset..)?;
+        if value.starts_with('{') {
+            return Some("an inline table");
+        }
+        let token: &str = value.split(['\n', '#', ',', '}']).next()?.trim();
+        let date_like = token.starts_with(|c: char| c.is_ascii_digit())
+            && token.contains(['-', ':'])
+            && token
+                .chars()
+                .all(|c| c.is_ascii_digit() || "-:.+TtZz ".contains(c));
+        date_like.then_some("a date or time")
+    }
+
+    /// The first character that TOML forbids on the line of `offset` (a control character
+    /// other than tab, a carriage return not followed by a line feed), with why.
+    fn bad_character(&self, offset: usize) -> Option<(usize, String)> {
+        let offset = offset.min(self.text.len());
+        let start = self.text.get(..offset)?.rfind('\n').map_or(0, |i| i + 1);
+        let end = self.text[start..]
+            .find('\n')
+            .map_or(self.text.len(), |i| start + i);
+        let line = &self.text[start..end];
+        line.char_indices().find_map(|(i, c)| {
+            let at = start + i;
+            match c {
+                '\r' if !self.text[at + 1..].starts_with('\n') => Some((
+                    at,
+                    "a carriage return (CR) alone ends a line here: TOML needs LF or CR LF \
+                     line endings; convert the file's line endings"
+                        .to_string(),
+                )),
+                '\t' | '\r' => None,
+                c if c.is_control() => Some((
+                    at,
+                    format!(
+                        "control character U+{code:04X} is not allowed in a TOML file (only \
+                         tab is; inside a quoted string write it as \\u{code:04X})",
+                        code = u32::from(c)
+                    ),
+                )),
+                _ => None,
+            }
+        })
     }
 
     /// The table an offset falls in: the innermost table span from a loose parse, or, when
@@ -161,7 +234,7 @@ impl Locator<'_> {
 
 /// Keys and airfoil names come from the file and may hold line breaks or other control
 /// characters; they are escaped so the error stays one line.
-fn one_line(s: &str) -> String {
+pub(super) fn one_line(s: &str) -> String {
     s.chars()
         .map(|c| {
             if c.is_control() {
@@ -175,6 +248,8 @@ fn one_line(s: &str) -> String {
 
 fn unknown_kind(variant: &str) -> String {
     let kinds = ["flap", "aileron"];
+    let variant = clip(variant, QUOTE_CHARS);
+    let variant = variant.as_str();
     match did_you_mean(variant, &kinds) {
         Some(best) => format!("unknown control kind `{variant}` (did you mean `{best}`?)"),
         None => format!("unknown control kind `{variant}` (expected `flap` or `aileron`)"),
@@ -182,7 +257,8 @@ fn unknown_kind(variant: &str) -> String {
 }
 
 /// "invalid type: string \"x\", expected f64" -> "must be a number (got string \"x\")".
-fn wrong_type(message: &str, field: &str) -> Option<String> {
+/// `value_kind` names a value that serde calls a map more exactly (a date, an inline table).
+fn wrong_type(message: &str, field: &str, value_kind: Option<&str>) -> Option<String> {
     let rest = message.strip_prefix("invalid type: ")?;
     let (got, expected) = rest.rsplit_once(", expected ")?;
     let wanted = match expected.trim() {
@@ -194,20 +270,28 @@ fn wrong_type(message: &str, field: &str) -> Option<String> {
         other => other.to_string(),
     };
     let got = match got {
-        "map" => "a table",
-        "sequence" => "an array",
-        other => other,
+        "map" => value_kind.unwrap_or("a table").to_string(),
+        "sequence" => "an array".to_string(),
+        other => clip(other, QUOTE_CHARS),
     };
     Some(format!("must be {wanted} (got {got})"))
 }
 
-/// A syntax error on one line: toml puts its "expected ..." hint on a second line.
-fn syntax(message: &str) -> String {
+/// A syntax error on one line: toml puts its "expected ..." hint on a second line. When toml
+/// gives no words at all, the text it stopped at is quoted.
+fn syntax(message: &str, rest: &str) -> String {
     let parts: Vec<&str> = message
         .lines()
         .map(str::trim)
         .filter(|l| !l.is_empty())
         .collect();
+    if parts.is_empty() {
+        let here = rest.lines().next().unwrap_or("").trim_end();
+        if here.is_empty() {
+            return "TOML syntax: the file ends where a value or key was expected".to_string();
+        }
+        return format!("TOML syntax: cannot read `{}`", clip(here, QUOTE_CHARS / 2));
+    }
     format!("TOML syntax: {}", parts.join("; "))
 }
 
