@@ -78,7 +78,7 @@ pub fn non_finite(s: &Solution) -> Option<&'static str> {
         ("reynolds_mac", f.reynolds_mac),
         ("lift_N", f.lift),
         ("drag_N", f.drag),
-        ("root_bending_moment_Nm", f.root_bending_moment),
+        ("root_bending_moment_Nm", f.right_root_bending_moment),
         ("root_bending_moment_left_Nm", f.left_root_bending_moment),
         ("first_stall_y_m", stall[0]),
         ("CL_first_stall", stall[1]),
@@ -136,7 +136,7 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         cla = fixed(s.cl_alpha, 3),
         roll = fixed(c.cl_roll, 5),
         cn = fixed(c.cn, 5),
-        m = fixed(s.flight.root_bending_moment, 1),
+        m = fixed(s.flight.right_root_bending_moment, 1),
         method = s.method.name,
         n = s.method.resolution,
         hash = fingerprint(wing),
@@ -208,7 +208,7 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         "loads       lift {} N  drag {} N  root bending {} N m  centre of lift y {} m",
         fixed(f.lift, 1),
         fixed(f.drag, 2),
-        fixed(f.root_bending_moment, 2),
+        fixed(f.right_root_bending_moment, 2),
         opt(center_of_lift(s), 3)
     );
     let stall = s.first_stall.map_or_else(
@@ -337,7 +337,7 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
         "Cn": c.cn,
         "Cn_induced": c.cn_induced,
         "Cn_profile": c.cn_profile,
-        "root_bending_moment_Nm": f.root_bending_moment,
+        "root_bending_moment_Nm": f.right_root_bending_moment,
         "root_bending_moment_left_Nm": f.left_root_bending_moment,
         "center_of_lift_y_m": center_of_lift(s),
         "first_stall_y_m": s.first_stall.map(|st| st.y),

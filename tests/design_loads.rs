@@ -49,7 +49,7 @@ fn root_bending_at_one_g_without_wing_mass_equals_the_solvers() {
             &gammaline::design::at_cl(&w, l.solution.coefficients.cl),
         )
         .expect("solves");
-        let m = direct.flight.root_bending_moment;
+        let m = direct.flight.right_root_bending_moment;
         assert!(
             (l.root_bending - m).abs() / m < 1e-5,
             "{} vs {m}",

@@ -85,7 +85,7 @@ fn results_strip_shows_the_solver_numbers() {
         format!("L/D {:.1}", c.cl / c.cd),
         // The strip never shows a minus sign on a value that rounds to zero.
         format!("Cl_roll {:.5}", c.cl_roll).replace("-0.00000", "0.00000"),
-        format!("M_root {:.1} N m", s.flight.root_bending_moment),
+        format!("M_root {:.1} N m", s.flight.right_root_bending_moment),
         format!("stall y {:.3} m", s.first_stall.expect("stalls").y),
     ] {
         assert!(text.contains(&expected), "{expected} missing from\n{text}");

@@ -72,10 +72,11 @@ pub struct SweepPoint {
     pub stalled_points: usize,
 }
 
-/// The first section to reach its cl_max, by the linear critical-section estimate.
+/// Where cl first reaches cl_max, by the linear critical-section estimate: the first of the
+/// solver's spanwise points to get there (a collocation or output point, not a wing station).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct FirstStall {
-    /// Where, m.
+    /// Spanwise position of that point, m.
     pub y: f64,
     /// Wing CL when that section reaches cl_max.
     pub cl_wing: f64,
@@ -133,8 +134,9 @@ pub struct Flight {
     pub lift: f64,
     /// Drag (induced plus profile), N.
     pub drag: f64,
-    /// Right-half root bending moment, N m.
-    pub root_bending_moment: f64,
+    /// Root bending moment of the right half, N m (JSON key `root_bending_moment_Nm`, kept as
+    /// a contract). For an asymmetric load the halves differ: see the left half's beside it.
+    pub right_root_bending_moment: f64,
     /// Left-half root bending moment, N m.
     pub left_root_bending_moment: f64,
 }
@@ -159,7 +161,7 @@ impl Flight {
             reynolds_mac: s.air.density * s.speed * g.mac / s.air.viscosity,
             lift: s.q * g.area * c.cl,
             drag: s.q * g.area * c.cd,
-            root_bending_moment: s.q * bending_per_q.0,
+            right_root_bending_moment: s.q * bending_per_q.0,
             left_root_bending_moment: s.q * bending_per_q.1,
         }
     }
@@ -205,8 +207,8 @@ pub struct Solution {
     /// Spanwise centre of lift of the right half, m.
     pub center_of_lift_y: f64,
     /// Right-half root bending moment over dynamic pressure, m^3.
-    pub root_bending_per_q: f64,
-    /// First section to stall.
+    pub right_root_bending_per_q: f64,
+    /// The first spanwise point to reach cl_max (not necessarily a station).
     pub first_stall: Option<FirstStall>,
     /// Values at the output points, left tip to right tip.
     pub spanwise: Vec<SpanPoint>,

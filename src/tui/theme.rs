@@ -16,7 +16,7 @@ pub struct Glyphs {
     pub levels: [&'static str; 9],
     /// The cl_max = 1 line drawn across empty cells.
     pub limit: &'static str,
-    /// Marks the first station to stall under the plot.
+    /// Marks under the plot where cl first reaches cl_max (a spanwise point, not a station).
     pub stall: &'static str,
     /// Marks the current wing in the wing bar.
     pub current: &'static str,

@@ -1,6 +1,8 @@
 //! The wing model (stations, airfoils, controls, default condition) and its TOML file format.
 //!
-//! Nothing here solves anything: the solver reads a [`Wing`] through [`Wing::section_at`].
+//! Nothing here solves anything. The solver reads a [`Wing`] through [`Sections`], the
+//! stations' sections with their airfoils resolved once for its many look-ups;
+//! [`Wing::section_at`] is the same interpolation for a single look-up.
 
 mod blend;
 pub mod file;

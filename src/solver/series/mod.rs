@@ -1,8 +1,9 @@
 //! Glauert's sine-series solution of Prandtl's lifting-line equation, by collocation.
 //!
-//! [`prepare`] builds and factors the collocation system once per geometry; every angle of
-//! attack, target CL or sweep point after that is a back-substitution ([`Prepared::solve`],
-//! [`Prepared::sweep`]).
+//! [`prepare`] builds and factors the collocation system once per geometry and keeps two
+//! responses (per radian of alpha, and at zero alpha) with the spanwise integrals as
+//! polynomials in alpha; every angle of attack, target CL or sweep point after that is a
+//! combination of the two ([`Prepared::solve`], [`Prepared::sweep`]).
 
 pub mod fourier;
 pub mod integrals;
@@ -392,8 +393,8 @@ impl Prepared {
         }
     }
 
-    /// Coefficients at each angle of attack (degrees): one back-substitution already done,
-    /// so each point is O(1).
+    /// Coefficients at each angle of attack (degrees): the integrals are polynomials in alpha
+    /// prepared once, so each point is O(1).
     #[must_use]
     pub fn sweep(&self, alphas_deg: &[f64]) -> Vec<Coefficients> {
         alphas_deg
@@ -454,8 +455,11 @@ impl Prepared {
         let g = &self.geometry;
         let v = condition.speed;
         let right_lift = self.integrals.right_lift.at(alpha);
-        let root_bending_per_q = self.integrals.right_moment.at(alpha);
-        let bending = (root_bending_per_q, self.integrals.left_moment.at(alpha));
+        let right_root_bending_per_q = self.integrals.right_moment.at(alpha);
+        let bending = (
+            right_root_bending_per_q,
+            self.integrals.left_moment.at(alpha),
+        );
         let flight = Flight::of(condition, g, &coefficients, bending);
         let spanwise: Vec<SpanPoint> = self.points.iter().map(|p| p.at(alpha, v)).collect();
         let stations = self.station_points.iter().map(|p| p.at(alpha, v)).collect();
@@ -470,11 +474,11 @@ impl Prepared {
             tau: solution::tau(cl_alpha, self.integrals.mean_lift_slope, g.aspect_ratio),
             geometry: *g,
             center_of_lift_y: if right_lift.abs() > 1e-12 {
-                root_bending_per_q / right_lift
+                right_root_bending_per_q / right_lift
             } else {
                 f64::NAN
             },
-            root_bending_per_q,
+            right_root_bending_per_q,
             first_stall: self.first_stall,
             spanwise,
             stations,

@@ -261,7 +261,7 @@ fn curve(
     y + rows
 }
 
-/// The y axis: its ends (unit in the label column) and the first station to stall. The
+/// The y axis: its ends (unit in the label column) and the first spanwise point to stall. The
 /// marker always sits at its own column. When it would cover an end's number, both ends are
 /// written together as a range (`-5.00 to 5.00`) on the side away from the marker, so no
 /// end is hidden and no number is moved past the marker (where it would read as lying

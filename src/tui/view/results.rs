@@ -64,7 +64,7 @@ pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
     let stall_cl = |s: &Solution| s.first_stall.map(|f| f.cl_wing);
     add("stall y", stall_y(s), reference.and_then(stall_y), 3, " m");
     add("CL_stall", stall_cl(s), reference.and_then(stall_cl), 3, "");
-    let m = |s: &Solution| Some(s.flight.root_bending_moment);
+    let m = |s: &Solution| Some(s.flight.right_root_bending_moment);
     add("M_root", m(s), reference.and_then(m), 1, " N m");
     out
 }
