@@ -68,6 +68,7 @@ pub fn non_finite(s: &Solution) -> Option<&'static str> {
         ("CD", c.cd),
         ("Cl_roll", c.cl_roll),
         ("Cn", c.cn),
+        ("Cm", c.cm),
         ("CL_alpha_per_rad", s.cl_alpha),
         ("tau", s.tau),
         ("span_m", g.span),
@@ -203,6 +204,15 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         fixed(c.cn_induced, 6),
         fixed(c.cn_profile, 6)
     );
+    let r = &s.reference;
+    let _ = writeln!(
+        out,
+        "pitch       Cm {} about x {} m  (S_ref {} m^2, c_ref {} m)",
+        fixed(c.cm, 5),
+        fixed(r.x, 4),
+        fixed(r.area, 4),
+        fixed(r.chord, 4)
+    );
     let _ = writeln!(
         out,
         "loads       lift {} N  drag {} N  root bending {} N m  centre of lift y {} m",
@@ -290,6 +300,7 @@ fn point_json(p: &SpanPoint, reynolds: f64) -> Value {
         "span_load": p.span_load,
         "cl_max": p.cl_max,
         "cl_over_cl_max": p.cl_ratio,
+        "cm": p.cm,
         "reynolds": reynolds,
     })
 }
@@ -337,6 +348,11 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
         "Cn": c.cn,
         "Cn_induced": c.cn_induced,
         "Cn_profile": c.cn_profile,
+        "Cm": c.cm,
+        "reference_area_m2": s.reference.area,
+        "reference_span_m": s.reference.span,
+        "reference_chord_m": s.reference.chord,
+        "reference_x_m": s.reference.x,
         "root_bending_moment_Nm": f.right_root_bending_moment,
         "root_bending_moment_left_Nm": f.left_root_bending_moment,
         "center_of_lift_y_m": center_of_lift(s),
@@ -448,8 +464,8 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                     json!({
                         "alpha_deg": c.alpha_deg, "CL": c.cl, "CDi": c.cdi, "CDp": c.cdp,
                         "CD": c.cd, "e": c.e, "L_over_D": ld(c), "Cl_roll": c.cl_roll,
-                        "Cn": c.cn, "lift_N": q * g.area * c.cl, "drag_N": q * g.area * c.cd,
-                        "past_stall": past,
+                        "Cn": c.cn, "Cm": c.cm, "lift_N": q * g.area * c.cl,
+                        "drag_N": q * g.area * c.cd, "past_stall": past,
                     })
                 })
                 .collect();
@@ -462,7 +478,7 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
         }
         SweepStyle::Csv => {
             let mut out =
-                String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn,past_stall\n");
+                String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn,Cm,past_stall\n");
             for (c, past) in points.iter().zip(&past_stall) {
                 let row = [
                     Some(c.alpha_deg),
@@ -474,6 +490,7 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                     ld(c),
                     Some(c.cl_roll),
                     Some(c.cn),
+                    Some(c.cm),
                 ];
                 let _ = writeln!(out, "{},{}", csv_row(&row), u8::from(*past));
             }

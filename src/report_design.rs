@@ -8,6 +8,7 @@ use serde_json::{json, Value};
 
 use crate::design::loads::{LoadCase, MassDistribution, SparLoads};
 use crate::design::roll::RollAuthority;
+use crate::design::study::{Row, Variant, Vary};
 use crate::design::twist::TwistDesign;
 use crate::report::{csv_row, opt, unsigned_zeros};
 use crate::solver::Solution;
@@ -345,4 +346,118 @@ pub fn add_roll_json(json: &mut Value, roll: Option<&RollAuthority>) {
         );
         map.insert("pb_2V".into(), json!(roll.map(|r| r.pb_2v)));
     }
+}
+
+/// The numbers of a study row in column order, `None` where a value does not exist.
+fn study_values(row: &Row) -> [Option<f64>; 10] {
+    [
+        Some(row.alpha_deg),
+        Some(row.cl),
+        Some(row.cdi),
+        row.e,
+        Some(row.cl_alpha),
+        Some(row.cd),
+        row.l_over_d,
+        row.first_stall_y,
+        Some(row.root_bending),
+        Some(row.cl_roll),
+    ]
+}
+
+/// The JSON keys of a study row, as `solve` names them.
+const STUDY_KEYS: [&str; 10] = [
+    "alpha_deg",
+    "CL",
+    "CDi",
+    "e",
+    "CL_alpha_per_rad",
+    "CD",
+    "L_over_D",
+    "first_stall_y_m",
+    "root_bending_moment_Nm",
+    "Cl_roll",
+];
+
+/// The readable table of a study: one row per variant, a failed one with its reason.
+#[must_use]
+pub fn study_table(wing: &Wing, vary: &Vary, variants: &[Variant]) -> String {
+    let mut out = format!(
+        "wing {}  [{}]  varying {}\n",
+        inert(&wing.name),
+        fingerprint(wing),
+        inert(&vary.name)
+    );
+    let _ = writeln!(
+        out,
+        "{:>10} {:>7} {:>7} {:>8} {:>6} {:>6} {:>8} {:>6} {:>7} {:>10} {:>8}",
+        "value", "alpha", "CL", "CDi", "e", "CLa", "CD", "L/D", "stall y", "Mroot N m", "Cl_roll"
+    );
+    let decimals = [2, 4, 5, 4, 3, 5, 1, 3, 1, 5];
+    for v in variants {
+        let _ = write!(out, "{:>10}", fixed(v.value, 4));
+        match &v.result {
+            Ok(row) => {
+                let widths = [7, 7, 8, 6, 6, 8, 6, 7, 10, 8];
+                for ((value, d), w) in study_values(row).iter().zip(decimals).zip(widths) {
+                    let _ = write!(out, " {:>w$}", opt(*value, d));
+                }
+                out.push('\n');
+            }
+            Err(e) => {
+                let _ = writeln!(out, "  not solved: {}", inert(e));
+            }
+        }
+    }
+    out
+}
+
+/// The JSON object of a study: `{"variants": [...]}`, each variant's numbers under the keys
+/// `solve` uses, a failed one with `error`.
+#[must_use]
+pub fn study_json(wing: &Wing, vary: &Vary, variants: &[Variant]) -> Value {
+    let rows: Vec<Value> = variants
+        .iter()
+        .map(|v| {
+            let mut row = serde_json::Map::new();
+            row.insert("value".into(), json!(v.value));
+            match &v.result {
+                Ok(r) => {
+                    for (key, value) in STUDY_KEYS.iter().zip(study_values(r)) {
+                        row.insert((*key).into(), json!(value));
+                    }
+                }
+                Err(e) => {
+                    row.insert("error".into(), json!(e));
+                }
+            }
+            Value::Object(row)
+        })
+        .collect();
+    let mut out = json!({
+        "wing": wing.name,
+        "fingerprint": fingerprint(wing),
+        "vary": vary.name,
+        "variants": rows,
+    });
+    unsigned_zeros(&mut out);
+    out
+}
+
+/// A study as CSV with a header row; a failed variant has empty fields and its reason last.
+#[must_use]
+pub fn study_csv(variants: &[Variant]) -> String {
+    let mut out = format!("value,{},error\n", STUDY_KEYS.join(","));
+    for v in variants {
+        let (values, error) = match &v.result {
+            Ok(r) => (study_values(r), String::new()),
+            Err(e) => ([None; 10], format!("\"{}\"", e.replace('"', "'"))),
+        };
+        let _ = writeln!(
+            out,
+            "{},{},{error}",
+            csv_row(&[Some(v.value)]),
+            csv_row(&values)
+        );
+    }
+    out
 }

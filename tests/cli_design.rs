@@ -194,3 +194,54 @@ fn solve_reports_roll_authority_for_wings_with_an_aileron() {
     let table = gammaline(&["solve", "wings/trainer.toml"]);
     assert!(String::from_utf8_lossy(&table.stdout).contains("steady pb/2V"));
 }
+
+#[test]
+fn study_prints_every_variant_in_every_format() {
+    let args = [
+        "study",
+        "wings/trainer.toml",
+        "--vary",
+        "washout=0:5:0.005",
+        "--cl",
+        "0.5",
+    ];
+    let j = json(&gammaline(&[&args[..], &["--format", "json"]].concat()));
+    let variants = j["variants"].as_array().expect("variants");
+    assert_eq!(variants.len(), 1001);
+    for key in [
+        "value",
+        "alpha_deg",
+        "CL",
+        "CDi",
+        "e",
+        "CL_alpha_per_rad",
+        "CD",
+        "L_over_D",
+    ] {
+        assert!(variants[500][key].is_f64(), "{key}");
+    }
+    for key in ["first_stall_y_m", "root_bending_moment_Nm", "Cl_roll"] {
+        assert!(variants[500][key].is_f64(), "{key}");
+    }
+    // The solve of the same edited wing: washout 2.5 deg added to the file's own twist.
+    assert!((variants[500]["CL"].as_f64().unwrap() - 0.5).abs() < 1e-12);
+    let csv = gammaline(&[
+        "study",
+        "wings/trainer.toml",
+        "--vary",
+        "span=8:12:2",
+        "--format",
+        "csv",
+    ]);
+    assert_eq!(String::from_utf8_lossy(&csv.stdout).lines().count(), 4);
+    let table = gammaline(&["study", "wings/trainer.toml", "--vary", "taper=0.4:0.8:0.2"]);
+    assert!(String::from_utf8_lossy(&table.stdout).contains("Mroot"));
+    let o = gammaline(&[
+        "study",
+        "wings/trainer.toml",
+        "--vary",
+        "control.ailron.deflection=0:5:1",
+    ]);
+    let err = one_line_error(&o);
+    assert!(err.contains("did you mean `aileron`"), "{err}");
+}

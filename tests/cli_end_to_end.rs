@@ -46,7 +46,7 @@ fn json_of(file: &str, extra: &[&str]) -> Value {
 }
 
 /// The keys the core issue spells out: a contract users' scripts rely on.
-const CONTRACT_KEYS: [&str; 18] = [
+const CONTRACT_KEYS: [&str; 19] = [
     "wing",
     "method",
     "alpha_deg",
@@ -61,6 +61,7 @@ const CONTRACT_KEYS: [&str; 18] = [
     "span_m",
     "Cl_roll",
     "Cn",
+    "Cm",
     "root_bending_moment_Nm",
     "first_stall_y_m",
     "CL_first_stall",
@@ -98,6 +99,7 @@ fn json_has_the_contract_keys_with_numbers() {
             "CL_alpha_per_rad",
             "aspect_ratio",
             "span_m",
+            "Cm",
         ] {
             assert!(
                 v[key].as_f64().is_some_and(f64::is_finite),

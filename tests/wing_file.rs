@@ -341,6 +341,7 @@ fn valid_wing() -> impl Strategy<Value = Wing> {
                     airfoils,
                     controls,
                     condition,
+                    reference: Default::default(),
                 }
             },
         )

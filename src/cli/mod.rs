@@ -5,6 +5,7 @@ mod commands;
 mod design;
 mod loads;
 mod refusal;
+mod study;
 mod verify;
 
 use std::path::PathBuf;
@@ -47,6 +48,8 @@ enum Command {
     Design(design::DesignArgs),
     /// Shear force and bending moment along the span at a load factor.
     Loads(loads::LoadsArgs),
+    /// Vary one parameter over a range and solve every variant (a trade study).
+    Study(study::StudyArgs),
     /// Validate wing files and print each one's geometry summary.
     Check {
         /// Wing files (TOML).
@@ -162,6 +165,7 @@ pub fn run() -> ExitCode {
         Some(Command::Verify { format }) => return verify::verify(format),
         Some(Command::Design(args)) => design::run(&args),
         Some(Command::Loads(args)) => loads::run(&args),
+        Some(Command::Study(args)) => study::run(&args),
         Some(Command::Open { files }) => {
             return workbench(files, cli.session, cli.ascii, cli.notebook)
         }

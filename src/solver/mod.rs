@@ -8,6 +8,7 @@
 pub mod compressibility;
 pub mod controls;
 pub mod method;
+pub mod moment;
 pub mod series;
 pub mod solution;
 
@@ -154,6 +155,7 @@ impl PreparedWing {
             && w.stations == wing.stations
             && w.airfoils == wing.airfoils
             && w.controls == wing.controls
+            && w.reference == wing.reference
             && self.condition_fits(&wing.condition)
     }
 

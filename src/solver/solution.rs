@@ -26,6 +26,8 @@ pub struct SpanPoint {
     /// Whether the method judges the stall here: false where cl/cl_max has no meaning that
     /// converges (next to a pointed tip, where the chord goes to zero).
     pub stall_judged: bool,
+    /// Section pitching-moment coefficient about the quarter chord, positive nose up.
+    pub cm: f64,
 }
 
 impl SpanPoint {
@@ -61,6 +63,9 @@ pub struct Coefficients {
     pub cn_induced: f64,
     /// Profile part of Cn.
     pub cn_profile: f64,
+    /// Pitching moment about the reference point, positive nose up: Cm = M/(q S_ref c_ref)
+    /// ([`super::moment`]).
+    pub cm: f64,
 }
 
 /// One row of an alpha sweep.
@@ -218,6 +223,8 @@ pub struct Solution {
     pub flight: Flight,
     /// The method, its resolution and convergence, and its own numbers.
     pub method: MethodReport,
+    /// The reference quantities of Cm (the `[reference]` table, planform defaults).
+    pub reference: crate::wing::ReferenceValues,
     /// Where lifting-line theory is weak for this case.
     pub warnings: Vec<String>,
 }

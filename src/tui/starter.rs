@@ -41,5 +41,6 @@ pub fn wing() -> Wing {
             altitude: 0.0,
             roll_rate: 0.0,
         },
+        reference: Default::default(),
     }
 }

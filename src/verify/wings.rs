@@ -38,6 +38,7 @@ pub fn wing(stations: Vec<Station>, airfoil: Airfoil) -> Wing {
         airfoils: BTreeMap::from([("a".to_string(), airfoil)]),
         controls: Vec::new(),
         condition: Condition::default(),
+        reference: Default::default(),
     }
 }
 

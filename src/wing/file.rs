@@ -10,7 +10,7 @@ use serde::Deserialize;
 use toml::Spanned;
 
 use super::validate::{self, Place};
-use super::{Condition, Control, ControlKind, Station, Wing};
+use super::{Condition, Control, ControlKind, Reference, Station, Wing};
 
 mod airfoil;
 mod edit;
@@ -222,6 +222,7 @@ struct RawWing {
     #[serde(default)]
     control: Vec<Spanned<RawControl>>,
     condition: Option<Spanned<RawCondition>>,
+    reference: Option<Spanned<RawReference>>,
 }
 
 #[derive(Deserialize)]
@@ -262,6 +263,15 @@ struct RawCondition {
     speed: Option<Spanned<f64>>,
     altitude: Option<Spanned<f64>>,
     roll_rate: Option<Spanned<f64>>,
+}
+
+#[derive(Deserialize)]
+#[serde(deny_unknown_fields)]
+struct RawReference {
+    area: Option<Spanned<f64>>,
+    span: Option<Spanned<f64>>,
+    chord: Option<Spanned<f64>>,
+    x: Option<Spanned<f64>>,
 }
 
 /// Takes a value and records where it stood.
@@ -329,6 +339,10 @@ impl RawWing {
         let condition = self
             .condition
             .map_or_else(Condition::default, |c| condition(&mut spans, c));
+        let reference = self
+            .reference
+            .map(|r| reference(&mut spans, r))
+            .unwrap_or_default();
         let wing = Wing {
             name,
             symmetric,
@@ -336,6 +350,7 @@ impl RawWing {
             airfoils,
             controls,
             condition,
+            reference,
         };
         Ok((wing, spans))
     }
@@ -387,6 +402,20 @@ fn condition(spans: &mut Spans, raw: Spanned<RawCondition>) -> Condition {
         speed: take_or(spans, &place, "speed", c.speed, d.speed),
         altitude: take_or(spans, &place, "altitude", c.altitude, d.altitude),
         roll_rate: take_or(spans, &place, "roll_rate", c.roll_rate, d.roll_rate),
+    }
+}
+
+fn reference(spans: &mut Spans, raw: Spanned<RawReference>) -> Reference {
+    let place = Place::Reference;
+    spans.tables.insert(place.clone(), raw.span().start);
+    let r = raw.into_inner();
+    let mut given =
+        |field: &'static str, v: Option<Spanned<f64>>| v.map(|v| take(spans, &place, field, v));
+    Reference {
+        area: given("area", r.area),
+        span: given("span", r.span),
+        chord: given("chord", r.chord),
+        x: given("x", r.x),
     }
 }
 
@@ -452,7 +481,26 @@ pub fn to_toml(wing: &Wing) -> String {
     if c.roll_rate != 0.0 {
         let _ = writeln!(out, "roll_rate = {}", num(c.roll_rate));
     }
+    write_reference(&mut out, &wing.reference);
     out
+}
+
+/// `[reference]` with the values the wing gives (none: no table).
+fn write_reference(out: &mut String, r: &Reference) {
+    if r.is_empty() {
+        return;
+    }
+    let _ = writeln!(out, "\n[reference]");
+    for (key, value) in [
+        ("area", r.area),
+        ("span", r.span),
+        ("chord", r.chord),
+        ("x", r.x),
+    ] {
+        if let Some(v) = value {
+            let _ = writeln!(out, "{key} = {}", num(v));
+        }
+    }
 }
 
 /// A table airfoil's rows as inline arrays (also one read from a CSV file, so the text

@@ -259,6 +259,8 @@ pub struct Wing {
     pub controls: Vec<Control>,
     /// The file's default condition.
     pub condition: Condition,
+    /// Reference quantities of the pitching moment (`[reference]`; planform defaults).
+    pub reference: super::Reference,
 }
 
 impl Wing {

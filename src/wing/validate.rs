@@ -38,6 +38,8 @@ pub enum Place {
     Control(usize),
     /// The `[condition]` table.
     Condition,
+    /// The `[reference]` table.
+    Reference,
 }
 
 impl fmt::Display for Place {
@@ -48,6 +50,7 @@ impl fmt::Display for Place {
             Self::Airfoil(key) => write!(f, "airfoil {}", clip(key, QUOTE_CHARS)),
             Self::Control(i) => write!(f, "control {}", i + 1),
             Self::Condition => write!(f, "condition"),
+            Self::Reference => write!(f, "reference"),
         }
     }
 }
@@ -85,7 +88,33 @@ pub fn problems(wing: &Wing) -> Vec<Problem> {
     airfoil_problems(wing, &mut out);
     control_problems(wing, &mut out);
     condition_problems(wing, &mut out);
+    reference_problems(&wing.reference, &mut out);
     out
+}
+
+/// `[reference]`: area, span and chord above 0, x a length (each when given). Area is an
+/// area, so its bound is the square of the length bound.
+fn reference_problems(r: &super::Reference, out: &mut Vec<Problem>) {
+    let place = Place::Reference;
+    let positive = [
+        ("area", r.area, (MAX_LENGTH_M * MAX_LENGTH_M, " m^2")),
+        ("span", r.span, LENGTH),
+        ("chord", r.chord, LENGTH),
+    ];
+    for (field, value, limit) in positive {
+        let Some(value) = value else { continue };
+        if finite(out, &place, field, value) {
+            if value <= 0.0 {
+                let reason = format!("must be > 0 (got {})", readable(value));
+                out.push(problem(place.clone(), field, reason));
+            } else {
+                at_most(out, &place, field, value, limit);
+            }
+        }
+    }
+    if let Some(x) = r.x {
+        within(out, &place, "x", x, LENGTH);
+    }
 }
 
 fn finite(out: &mut Vec<Problem>, place: &Place, field: &'static str, value: f64) -> bool {

@@ -39,6 +39,7 @@ fn wing(n: usize) -> Wing {
             alpha_deg: 5.0,
             ..Condition::default()
         },
+        reference: Default::default(),
     }
 }
 

@@ -17,7 +17,9 @@ use super::solution::{
     self, Coefficients, FirstStall, Flight, MethodReport, Solution, SpanPoint, SweepPoint,
 };
 use super::SolveError;
+use crate::solver::moment::MomentFrame;
 use crate::wing::validate;
+use crate::wing::ReferenceValues;
 use crate::wing::{Condition, Geometry, Section, Sections, Wing};
 use fourier::SpanMap;
 use integrals::LoadIntegrals;
@@ -57,6 +59,9 @@ pub struct Prepared {
     edge_points: Vec<spanwise::LinearPoint>,
     first_stall: Option<FirstStall>,
     warnings: Vec<String>,
+    /// Cm at zero alpha and per radian (linear: every section's cm is its constant `cm0`).
+    cm: (f64, f64),
+    reference: ReferenceValues,
 }
 
 /// Builds and factors the collocation system of a wing, with its section lift slopes
@@ -112,7 +117,13 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     let points = spanwise::linear_points(&at.ys, &at.sections, &sums, scales, inputs);
     let station_points = station_points(wing, &sections, map, pair, scales, inputs);
     let edge_points = edge_points(wing, &sections, map, pair, scales, inputs);
+    let frame = MomentFrame::of(wing, &geometry);
+    let cm_at = |alpha: f64| frame.cm(&points.iter().map(|p| p.at(alpha, 1.0)).collect::<Vec<_>>());
+    let cm_zero = cm_at(0.0);
+    let cm = (cm_zero, cm_at(1.0) - cm_zero);
     let mut prepared = Prepared {
+        cm,
+        reference: *frame.reference(),
         geometry,
         per_alpha: responses.per_alpha,
         at_zero: responses.at_zero,
@@ -390,6 +401,7 @@ impl Prepared {
             cn: cn_induced + cn_profile,
             cn_induced,
             cn_profile,
+            cm: self.cm.0 + alpha * self.cm.1,
         }
     }
 
@@ -492,6 +504,7 @@ impl Prepared {
                 extras: vec![("fourier", self.fourier_at(alpha))],
             },
             warnings,
+            reference: self.reference,
         }
     }
 

@@ -134,6 +134,8 @@ pub struct LinearPoint {
     pub alpha_i: Linear,
     /// Circulation per unit airspeed, m.
     pub gamma_per_speed: Linear,
+    /// Section cm about the quarter chord (the linear section's constant `cm0`).
+    pub cm: f64,
 }
 
 impl LinearPoint {
@@ -151,6 +153,7 @@ impl LinearPoint {
             cl_max: self.cl_max,
             cl_ratio: cl / self.cl_max,
             stall_judged: self.stall_judged,
+            cm: self.cm,
         }
     }
 
@@ -209,6 +212,7 @@ pub fn linear_point(
         span_load: (ccl.0 / mean_chord, ccl.1 / mean_chord),
         alpha_i: sum.induced,
         gamma_per_speed: (2.0 * span * sum.load.0, 2.0 * span * sum.load.1),
+        cm: section.airfoil.cm0,
     }
 }
 

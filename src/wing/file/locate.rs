@@ -324,6 +324,7 @@ struct Loose {
     airfoil: Spans,
     control: Spans,
     condition: Option<Spanned<IgnoredAny>>,
+    reference: Option<Spanned<IgnoredAny>>,
 }
 
 impl Loose {
@@ -342,6 +343,10 @@ impl Loose {
             .or_else(|| {
                 let condition = self.condition.as_ref()?;
                 inside(&condition.span()).then_some(Place::Condition)
+            })
+            .or_else(|| {
+                let reference = self.reference.as_ref()?;
+                inside(&reference.span()).then_some(Place::Reference)
             })
             .unwrap_or(Place::Wing)
     }
@@ -430,6 +435,7 @@ fn header_place(text: &str, offset: usize) -> Place {
                 Place::Control(controls - 1)
             }
             h if opens(h, "[condition", "]") => Place::Condition,
+            h if opens(h, "[reference", "]") => Place::Reference,
             h if h.starts_with("[airfoil.") => {
                 let key = h["[airfoil.".len()..].trim_end_matches(']');
                 Place::Airfoil(key.trim_matches(|c| c == '"' || c == '\'').to_string())
