@@ -125,7 +125,8 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     );
     format!(
         "{name} | {cond} | CL {cl} CDi {cdi} CDp {cdp} CD {cd} L/D {ld} e {e} \
-         CLa {cla}/rad Cl_roll {roll} Cn {cn} Mroot {m} N m {stall} | {method} N={n} | wing {hash}",
+         CLa {cla}/rad Cl_roll {roll} Cn {cn} Cm {cm} Mroot {m} N m {stall} | {method} N={n} | \
+         wing {hash}",
         name = inert(&wing.name),
         cond = condition_text(s, target_cl),
         cl = fixed(c.cl, 4),
@@ -137,6 +138,7 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         cla = fixed(s.cl_alpha, 3),
         roll = fixed(c.cl_roll, 5),
         cn = fixed(c.cn, 5),
+        cm = fixed(c.cm, 5),
         m = fixed(s.flight.right_root_bending_moment, 1),
         method = s.method.name,
         n = s.method.resolution,

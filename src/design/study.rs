@@ -408,7 +408,7 @@ pub fn variant(
                     cd: c.cd,
                     l_over_d: (c.cd > 0.0).then(|| c.cl / c.cd),
                     first_stall_y: s.first_stall.map(|f| f.y),
-                    root_bending: s.flight.root_bending_moment,
+                    root_bending: s.flight.right_root_bending_moment,
                     cl_roll: c.cl_roll,
                 }
             })
