@@ -167,7 +167,7 @@ fn the_sweep_command_marks_every_row_past_the_first_stall() {
             .expect("alpha")
             .parse()
             .expect("number");
-        let flagged = row.trim_end().ends_with("past");
+        let flagged = row.trim_end().ends_with("past cl_max");
         assert_eq!(
             flagged,
             alpha > stall,
@@ -182,6 +182,6 @@ fn the_sweep_command_marks_every_row_past_the_first_stall() {
     .expect("json");
     for row in json["points"].as_array().expect("points") {
         let alpha = row["alpha_deg"].as_f64().expect("alpha");
-        assert_eq!(row["past_stall"].as_bool(), Some(alpha > stall), "{row}");
+        assert_eq!(row["stalled"].as_bool(), Some(alpha > stall), "{row}");
     }
 }

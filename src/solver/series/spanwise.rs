@@ -153,6 +153,7 @@ impl LinearPoint {
             cl_max: self.cl_max,
             cl_ratio: cl / self.cl_max,
             stall_judged: self.stall_judged,
+            past_stall: self.stall_judged && cl.abs() > self.cl_max,
             cm: self.cm,
         }
     }
