@@ -571,3 +571,30 @@ fn big_wings_keep_the_table_columns_whole() {
     }
     let _ = std::fs::remove_dir_all(dir);
 }
+
+#[test]
+fn sweep_angles_are_the_decimals_the_steps_name() {
+    let o = gammaline(&[
+        "sweep",
+        "wings/trainer.toml",
+        "--from",
+        "-4",
+        "--to",
+        "1",
+        "--step",
+        "0.1",
+        "--format",
+        "csv",
+    ]);
+    assert!(o.status.success(), "{}", stderr(&o));
+    let out = stdout(&o);
+    let alphas: Vec<&str> = out
+        .lines()
+        .skip(1)
+        .filter_map(|l| l.split(',').next())
+        .collect();
+    assert_eq!(alphas.len(), 51, "{out}");
+    for a in alphas {
+        assert!(a.len() <= 4, "alpha printed as {a}");
+    }
+}

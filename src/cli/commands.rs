@@ -181,7 +181,9 @@ pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
         .map_err(|e| refusal::refusal(&args.file, &origin, &e, flags))?;
     warn(&args.file, prepared.warnings());
     let alphas: Vec<f64> = (0..count)
-        .map(|i| args.from + i as f64 * args.step)
+        // On a 1e-9 deg grid, as the nearest double to that decimal, so a 0.1 step gives
+        // -3.7, not -3.7000000000000006, in every format.
+        .map(|i| ((args.from + i as f64 * args.step) * 1e9).round() / 1e9)
         .collect();
     let points = prepared
         .sweep(&alphas)

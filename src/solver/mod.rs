@@ -236,10 +236,16 @@ impl PreparedWing {
     /// # Errors
     /// [`SolveError::NotConverged`] when an iterative method fails at some alpha.
     pub fn sweep(&self, alphas_deg: &[f64]) -> Result<Vec<SweepPoint>, SolveError> {
-        match &self.inner {
-            Inner::Series(p) => Ok(p.sweep_points(alphas_deg)),
-            Inner::Vortex(p) => p.sweep(alphas_deg),
+        let mut points = match &self.inner {
+            Inner::Series(p) => p.sweep_points(alphas_deg),
+            Inner::Vortex(p) => p.sweep(alphas_deg)?,
+        };
+        // Each row reports the angle asked for, not its round trip through radians
+        // (3.7 deg, not 3.7000000000000006).
+        for (point, &alpha) in points.iter_mut().zip(alphas_deg) {
+            point.coefficients.alpha_deg = alpha;
         }
+        Ok(points)
     }
 
     /// The wing's CL_max at the prepared condition's Mach number and roll rate: the vortex
