@@ -431,6 +431,7 @@ impl App {
                 self.clamp_cursor();
             }
             Action::SwitchMethod => self.switch_method(),
+            Action::FindClMax => self.find_cl_max(),
             Action::Help => self.mode = Mode::Help { scroll: 0 },
             Action::Quit => {
                 if self.docs.iter().any(Doc::unsaved) {
@@ -678,6 +679,26 @@ impl App {
             source: self.current,
         });
         self.say(&msg, false);
+    }
+
+    /// The current wing's CL_max, said in the status line.
+    fn find_cl_max(&mut self) {
+        let (text, error) = match self.doc().cl_max() {
+            Some(Ok(m)) if m.cl_max.is_finite() => (
+                format!(
+                    "CL_max {:.4} at alpha {:.2} deg ({}, {})",
+                    m.cl_max,
+                    m.alpha_deg,
+                    m.found_by.as_str(),
+                    self.settings.method.short_name()
+                ),
+                false,
+            ),
+            Some(Ok(m)) => (format!("CL_max: {}", m.found_by.as_str()), false),
+            Some(Err(e)) => (format!("CL_max: {e}"), true),
+            None => ("CL_max: the wing is not solved".to_string(), true),
+        };
+        self.say(&text, error);
     }
 
     /// Every open wing re-solved by the other method.
