@@ -177,3 +177,35 @@ fn a_written_table_wing_stands_on_its_own() {
     let again = file::parse(&text, Path::new("/nowhere/else.toml")).expect("reads");
     assert_eq!(again, wing);
 }
+
+proptest::proptest! {
+    /// Rows rising with alpha give a curve that never falls between them, and never leaves
+    /// the range of its two rows (Fritsch & Carlson, SIAM J. Numer. Anal. 17(2), 1980: the
+    /// slopes scaled into alpha^2 + beta^2 <= 9 are sufficient for monotonicity).
+    #[test]
+    fn rising_rows_give_a_rising_curve(
+        steps in proptest::collection::vec((0.1f64..5.0, 0.0f64..0.6), 4..12),
+    ) {
+        let mut alpha = vec![-6.0];
+        let mut cl = vec![-0.3];
+        for (da, dcl) in &steps {
+            alpha.push(alpha[alpha.len() - 1] + da);
+            cl.push(cl[cl.len() - 1] + dcl);
+        }
+        let n = alpha.len();
+        let columns = Columns { alpha_deg: alpha.clone(), cl: cl.clone(), cd: vec![0.01; n], cm: None };
+        if let Ok(table) = SectionTable::new(TableSource::Inline, columns) {
+            for k in 0..n - 1 {
+                let mut last = cl[k];
+                for i in 1..=20 {
+                    let a = alpha[k] + (alpha[k + 1] - alpha[k]) * f64::from(i) / 20.0;
+                    let (value, slope) = table.lift(a.to_radians());
+                    proptest::prop_assert!(value >= last - 1e-12, "falls at {a}");
+                    proptest::prop_assert!(value <= cl[k + 1] + 1e-12, "overshoots at {a}");
+                    proptest::prop_assert!(slope >= -1e-9, "negative slope at {a}");
+                    last = value;
+                }
+            }
+        }
+    }
+}

@@ -537,3 +537,25 @@ fn a_table_airfoils_derived_values_are_read_only_and_its_cl_max_editable() {
     press(&mut app, "\n");
     assert_eq!(app.doc().wing.airfoils["outboard"].cl_max, 1.25);
 }
+
+#[test]
+fn a_linear_airfoils_cm0_is_edited_in_the_airfoil_pane_and_moves_cm() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut app = app(dir.path());
+    let before = app.doc().solved.as_ref().expect("solves").coefficients.cm;
+    // Airfoil pane, the cm0 column (the last of eight).
+    press(&mut app, "\tlllllll\n");
+    retype(&mut app, "-0.04");
+    press(&mut app, "\n");
+    let key = app
+        .doc()
+        .wing
+        .airfoils
+        .keys()
+        .next()
+        .expect("an airfoil")
+        .clone();
+    assert_eq!(app.doc().wing.airfoils[&key].cm0, -0.04);
+    let after = app.doc().solved.as_ref().expect("solves").coefficients.cm;
+    assert!(after < before - 0.01, "{before} -> {after}");
+}

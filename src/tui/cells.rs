@@ -85,6 +85,7 @@ pub fn columns(wing: &Wing, sheet: Sheet, offsets: bool) -> Vec<Field> {
             Field::Cd0,
             Field::Cd1,
             Field::Cd2,
+            Field::Cm0,
         ],
         Sheet::Controls => vec![
             // Deflection next to the kind: the number a designer changes most, so it is

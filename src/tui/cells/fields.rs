@@ -25,6 +25,7 @@ pub enum Field {
     Cd0,
     Cd1,
     Cd2,
+    Cm0,
     Name,
     Kind,
     YInner,
@@ -40,7 +41,7 @@ pub enum Field {
 
 impl Field {
     /// Every field, in the order of [`SPECS`].
-    pub const ALL: [Self; 24] = [
+    pub const ALL: [Self; 25] = [
         Self::Y,
         Self::Chord,
         Self::Twist,
@@ -54,6 +55,7 @@ impl Field {
         Self::Cd0,
         Self::Cd1,
         Self::Cd2,
+        Self::Cm0,
         Self::Name,
         Self::Kind,
         Self::YInner,
@@ -218,7 +220,7 @@ fn control_mut(w: &mut Wing, row: usize) -> Option<&mut Control> {
 }
 
 /// The field table, in the order of [`Field::ALL`] (a test checks it).
-pub const SPECS: [FieldSpec; 24] = [
+pub const SPECS: [FieldSpec; 25] = [
     spec(
         Field::Y,
         ("y", "y m", "m"),
@@ -341,6 +343,15 @@ pub const SPECS: [FieldSpec; 24] = [
         Value::Number {
             get: |w, r| airfoil(w, r).map(|a| a.cd2),
             set: |w, r| airfoil_mut(w, r).map(|a| &mut a.cd2),
+        },
+    )),
+    tabulated(spec(
+        Field::Cm0,
+        ("cm0", "cm0", ""),
+        (7, 0.005, 4),
+        Value::Number {
+            get: |w, r| airfoil(w, r).map(|a| a.cm0),
+            set: |w, r| airfoil_mut(w, r).map(|a| &mut a.cm0),
         },
     )),
     spec(
