@@ -235,6 +235,25 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         },
     );
     let _ = writeln!(out, "first stall {stall}");
+    let stalled = s.stalled_y();
+    if let (Some(first), Some(last)) = (stalled.first(), stalled.last()) {
+        let _ = writeln!(
+            out,
+            "stalled     {} points past cl_max, y {} to {} m",
+            stalled.len(),
+            fixed(*first, 3),
+            fixed(*last, 3)
+        );
+    }
+    if let Some(m) = s.cl_max {
+        let _ = writeln!(
+            out,
+            "CL_max      {} at alpha {} deg ({})",
+            opt(finite(m.cl_max), 4),
+            opt(finite(m.alpha_deg), 2),
+            m.found_by.as_str()
+        );
+    }
     for w in &s.warnings {
         let _ = writeln!(out, "warning     {w}");
     }
@@ -290,6 +309,22 @@ fn method_json(s: &Solution) -> Value {
         }
     }
     out
+}
+
+/// The stalled output points, and the wing's CL_max when it was asked for.
+fn stall_json(s: &Solution) -> Value {
+    let mut out = json!({ "stalled_y_m": s.stalled_y() });
+    if let (Some(m), Value::Object(map)) = (s.cl_max, &mut out) {
+        map.insert("CL_max".into(), json!(finite(m.cl_max)));
+        map.insert("alpha_CL_max_deg".into(), json!(finite(m.alpha_deg)));
+        map.insert("stall_found_by".into(), json!(m.found_by.as_str()));
+    }
+    out
+}
+
+/// A number, or `None` (JSON null) when it is not finite.
+fn finite(v: f64) -> Option<f64> {
+    v.is_finite().then_some(v)
 }
 
 fn point_json(p: &SpanPoint, reynolds: f64) -> Value {
@@ -376,7 +411,7 @@ pub fn json(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> Value {
         "stations": points(&s.stations),
         "spanwise": points(&s.spanwise),
     });
-    for part in [geometry_and_moments, flight, method_json(s)] {
+    for part in [geometry_and_moments, flight, method_json(s), stall_json(s)] {
         if let (Value::Object(target), Value::Object(source)) = (&mut out, part) {
             target.extend(source);
         }
@@ -453,17 +488,19 @@ pub struct SweepTable<'a> {
 pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
     let (g, q) = (table.geometry, table.q);
     let points: Vec<Coefficients> = table.points.iter().map(|p| p.coefficients).collect();
+    let stalled: Vec<usize> = table.points.iter().map(|p| p.stalled_points).collect();
     let ld = |c: &Coefficients| (c.cd > 0.0).then(|| c.cl / c.cd);
     match style {
         SweepStyle::Json => {
             let rows: Vec<Value> = points
                 .iter()
-                .map(|c| {
+                .zip(&stalled)
+                .map(|(c, &n)| {
                     json!({
                         "alpha_deg": c.alpha_deg, "CL": c.cl, "CDi": c.cdi, "CDp": c.cdp,
                         "CD": c.cd, "e": c.e, "L_over_D": ld(c), "Cl_roll": c.cl_roll,
                         "Cn": c.cn, "Cm": c.cm, "lift_N": q * g.area * c.cl,
-                        "drag_N": q * g.area * c.cd,
+                        "drag_N": q * g.area * c.cd, "stalled": n > 0, "stalled_points": n,
                     })
                 })
                 .collect();
@@ -475,8 +512,9 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             format!("{obj}\n")
         }
         SweepStyle::Csv => {
-            let mut out = String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn,Cm\n");
-            for c in &points {
+            let mut out =
+                String::from("alpha_deg,CL,CDi,CDp,CD,e,L_over_D,Cl_roll,Cn,Cm,stalled_points\n");
+            for (c, &n) in points.iter().zip(&stalled) {
                 let row = [
                     Some(c.alpha_deg),
                     Some(c.cl),
@@ -488,6 +526,7 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                     Some(c.cl_roll),
                     Some(c.cn),
                     Some(c.cm),
+                    Some(n as f64),
                 ];
                 let _ = writeln!(out, "{}", csv_row(&row));
             }
@@ -497,13 +536,18 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
             let mut out = format!("wing {}  [{}]\n", inert(&wing.name), fingerprint(wing));
             let _ = writeln!(
                 out,
-                "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
+                "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}  stall",
                 "alpha", "CL", "CDi", "CDp", "CD", "e", "L/D", "lift N"
             );
-            for c in &points {
+            for (c, &n) in points.iter().zip(&stalled) {
+                let flag = if n > 0 {
+                    format!("  {n} past cl_max")
+                } else {
+                    String::new()
+                };
                 let _ = writeln!(
                     out,
-                    "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}",
+                    "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}{flag}",
                     fixed(c.alpha_deg, 2),
                     fixed(c.cl, 4),
                     fixed(c.cdi, 5),

@@ -4,7 +4,7 @@ use std::io::Write as _;
 use std::path::{Path, PathBuf};
 
 use super::refusal::{self, Overrides};
-use super::{ConditionArgs, Format, SolveArgs, SweepArgs};
+use super::{ConditionArgs, Format, MethodArg, SolveArgs, SweepArgs};
 use crate::report;
 use crate::report_design;
 use crate::solver::{self, FreeStream, Method, PreparedWing, SolveError};
@@ -48,8 +48,25 @@ fn load_with_origin(path: &Path) -> Result<(Wing, Origin), String> {
     file::read_with_origin(path).map_err(|e| e.to_string())
 }
 
+/// The method the flags ask for (see [`method_flags`] for a resolution flag of the other one).
 pub(super) fn method(args: &ConditionArgs) -> Method {
-    Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS))
+    match args.method {
+        MethodArg::Series => Method::series(args.terms.unwrap_or(solver::DEFAULT_TERMS)),
+        MethodArg::Vortex => Method::vortex(args.panels.unwrap_or(solver::DEFAULT_PANELS)),
+    }
+}
+
+/// Refuses a resolution flag that belongs to the other method.
+pub(super) fn method_flags(args: &ConditionArgs) -> Result<(), String> {
+    match (args.method, args.terms, args.panels) {
+        (MethodArg::Series, _, Some(_)) => {
+            Err("--panels applies to --method vortex (the series takes --terms)".into())
+        }
+        (MethodArg::Vortex, Some(_), _) => {
+            Err("--terms applies to --method series (the vortex method takes --panels)".into())
+        }
+        _ => Ok(()),
+    }
 }
 
 /// Prepares `wing` at `condition` (which sets the Mach correction and the roll rate).
@@ -120,9 +137,13 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
         speed: args.condition.speed.is_some(),
         altitude: args.condition.altitude.is_some(),
     };
-    let s = prepare(&wing, &c, &args.condition)
-        .and_then(|p| p.solve(&c))
-        .map_err(|e| refusal::refusal(path, &origin, &e, flags))?;
+    method_flags(&args.condition)?;
+    let refused = |e: SolveError| refusal::refusal(path, &origin, &e, flags);
+    let prepared = prepare(&wing, &c, &args.condition).map_err(refused)?;
+    let mut s = prepared.solve(&c).map_err(refused)?;
+    if args.stall {
+        s.cl_max = Some(prepared.cl_max().map_err(refused)?);
+    }
     refusal::finite(&origin, &s)?;
     warn(path, &s.warnings);
     let roll = super::design::roll_of(path, &wing, &c, &args.condition)?;
@@ -148,6 +169,7 @@ fn solve_one(path: &Path, args: &SolveArgs) -> Result<(), String> {
 /// `gammaline sweep`.
 pub(super) fn sweep(args: &SweepArgs) -> Result<(), String> {
     let count = sweep_points(args.from, args.to, args.step)?;
+    method_flags(&args.condition)?;
     let (wing, origin) = load_with_origin(&args.file)?;
     let c = condition(&args.file, &wing, &args.condition)?;
     let flags = Overrides {

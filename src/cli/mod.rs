@@ -79,9 +79,25 @@ struct ConditionArgs {
     /// ISA geopotential altitude, m.
     #[arg(long, value_name = "M", allow_negative_numbers = true)]
     altitude: Option<f64>,
-    /// Number of sine terms in the series.
+    /// Solution method: Glauert's sine series (flat straight wing, linear sections) or the
+    /// numerical lifting line of horseshoe vortices (sweep, dihedral, section lift curves).
+    #[arg(long, value_enum, default_value_t = MethodArg::Series)]
+    method: MethodArg,
+    /// Number of sine terms in the series (`--method series`).
     #[arg(long, value_name = "N")]
     terms: Option<usize>,
+    /// Number of spanwise panels (`--method vortex`).
+    #[arg(long, value_name = "N")]
+    panels: Option<usize>,
+}
+
+/// The `--method` values.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+enum MethodArg {
+    /// Glauert's sine series by collocation.
+    Series,
+    /// Numerical lifting line: horseshoe vortices, Newton on the section lift curves.
+    Vortex,
 }
 
 #[derive(Debug, clap::Args)]
@@ -102,6 +118,10 @@ struct SolveArgs {
     cl: Option<f64>,
     #[command(flatten)]
     condition: ConditionArgs,
+    /// Also find the wing's CL_max by stepping alpha until the lift peaks or the solver
+    /// stops converging (JSON `CL_max`, `alpha_CL_max_deg`, `stall_found_by`).
+    #[arg(long)]
+    stall: bool,
     /// Output format.
     #[arg(long, value_enum, default_value_t = Format::Table)]
     format: Format,

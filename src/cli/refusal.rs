@@ -39,7 +39,9 @@ pub(super) fn refusal(path: &Path, origin: &Origin, e: &SolveError, flags: Overr
         }
         SolveError::Supersonic(_) => (Place::Condition, "speed", e.to_string()),
         SolveError::Singular => (Place::Wing, "station", e.to_string()),
-        SolveError::Settings(_) | SolveError::NotConverged { .. } => {
+        SolveError::Settings(_)
+        | SolveError::NotConverged { .. }
+        | SolveError::NotConvergedAt { .. } => {
             return format!("{}: {e}", shown(path));
         }
     };

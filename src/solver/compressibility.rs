@@ -29,8 +29,9 @@ pub fn beta(condition: &Condition) -> f64 {
     }
 }
 
-/// The wing with every airfoil's lift slope divided by [`beta`] of its own condition
-/// (borrowed unchanged when no correction applies).
+/// The wing with every airfoil's lift slope and cl_max divided by [`beta`] of its own
+/// condition, the whole section lift curve scaled (borrowed unchanged when no correction
+/// applies).
 #[must_use]
 pub fn corrected(wing: &Wing) -> Cow<'_, Wing> {
     let b = beta(&wing.condition);
@@ -40,6 +41,7 @@ pub fn corrected(wing: &Wing) -> Cow<'_, Wing> {
     let mut out = wing.clone();
     for airfoil in out.airfoils.values_mut() {
         airfoil.lift_slope /= b;
+        airfoil.cl_max /= b;
     }
     Cow::Owned(out)
 }

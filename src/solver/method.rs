@@ -77,7 +77,7 @@ impl Method {
     pub const fn name(self) -> &'static str {
         match self {
             Self::Glauert { .. } => super::series::METHOD,
-            Self::Vortex { .. } => "numerical lifting line, horseshoe vortices",
+            Self::Vortex { .. } => super::vortex::METHOD,
         }
     }
 

@@ -11,6 +11,7 @@ pub mod method;
 pub mod moment;
 pub mod series;
 pub mod solution;
+pub mod vortex;
 
 use std::borrow::Cow;
 
@@ -21,7 +22,8 @@ pub use method::{
     Method, DEFAULT_PANELS, DEFAULT_TERMS, MAX_PANELS, MAX_TERMS, MIN_PANELS, MIN_TERMS,
 };
 pub use solution::{
-    Coefficients, FirstStall, Flight, FreeStream, MethodReport, Solution, SpanPoint, SweepPoint,
+    ClMax, Coefficients, FirstStall, Flight, FreeStream, MethodReport, Solution, SpanPoint,
+    StallFoundBy, SweepPoint,
 };
 
 /// Why a wing could not be solved.
@@ -55,6 +57,16 @@ pub enum SolveError {
     /// A free stream at or above Mach 1.
     #[error("Mach {0:.3}: subsonic lifting-line theory does not apply at Mach 1 or above")]
     Supersonic(f64),
+    /// An iterative solve stopped before meeting its tolerance at this angle of attack.
+    #[error("the solver did not converge at alpha {alpha_deg} deg: {iterations} iterations, residual {residual:.3e}")]
+    NotConvergedAt {
+        /// Angle of attack, degrees.
+        alpha_deg: f64,
+        /// Iterations taken.
+        iterations: usize,
+        /// Largest residual at the end.
+        residual: f64,
+    },
     /// The iterative solve stopped before meeting its tolerance.
     #[error("the solver did not converge: {iterations} iterations, residual {residual:.3e}")]
     NotConverged {
@@ -76,6 +88,7 @@ pub struct PreparedWing {
 #[derive(Debug, Clone)]
 enum Inner {
     Series(series::Prepared),
+    Vortex(vortex::Prepared),
 }
 
 /// Readies `wing` for `method`, at the Mach number and roll rate of the wing's own condition.
@@ -90,11 +103,18 @@ pub fn prepare(wing: &Wing, method: Method) -> Result<PreparedWing, SolveError> 
         Method::Glauert { terms } => {
             Inner::Series(series::prepare(wing, series::Options { terms })?)
         }
-        Method::Vortex { .. } => {
-            return Err(SolveError::Settings(
-                "method: the vortex method is not available in this build".into(),
-            ))
-        }
+        Method::Vortex {
+            panels,
+            tol,
+            max_iter,
+        } => Inner::Vortex(vortex::prepare(
+            wing,
+            vortex::Options {
+                panels,
+                tol,
+                max_iter,
+            },
+        )?),
     };
     Ok(PreparedWing {
         wing: wing.clone(),
@@ -125,6 +145,7 @@ impl PreparedWing {
     pub fn geometry(&self) -> &Geometry {
         match &self.inner {
             Inner::Series(p) => p.geometry(),
+            Inner::Vortex(p) => p.geometry(),
         }
     }
 
@@ -140,6 +161,7 @@ impl PreparedWing {
     pub fn warnings(&self) -> &[String] {
         match &self.inner {
             Inner::Series(p) => p.warnings(),
+            Inner::Vortex(p) => p.warnings(),
         }
     }
 
@@ -178,6 +200,7 @@ impl PreparedWing {
         let this = self.for_condition(condition)?;
         let solution = match &this.inner {
             Inner::Series(p) => p.solve(condition),
+            Inner::Vortex(p) => p.solve(condition),
         }?;
         let alpha_deg = solution.coefficients.alpha_deg;
         match condition.target_cl {
@@ -207,6 +230,20 @@ impl PreparedWing {
     pub fn sweep(&self, alphas_deg: &[f64]) -> Result<Vec<SweepPoint>, SolveError> {
         match &self.inner {
             Inner::Series(p) => Ok(p.sweep_points(alphas_deg)),
+            Inner::Vortex(p) => p.sweep(alphas_deg),
+        }
+    }
+
+    /// The wing's CL_max at the prepared condition's Mach number and roll rate: the vortex
+    /// method steps alpha with continuation until the lift peaks or Newton fails; the linear
+    /// series takes the first section to reach cl_max.
+    ///
+    /// # Errors
+    /// [`SolveError::NotConverged`] when even the first solve fails.
+    pub fn cl_max(&self) -> Result<ClMax, SolveError> {
+        match &self.inner {
+            Inner::Series(p) => Ok(p.cl_max()),
+            Inner::Vortex(p) => p.cl_max(),
         }
     }
 }

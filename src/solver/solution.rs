@@ -23,15 +23,17 @@ pub struct SpanPoint {
     pub cl_max: f64,
     /// cl / cl_max.
     pub cl_ratio: f64,
+    /// Past the section's stall: cl beyond cl_max, or on the falling side of its lift curve.
+    pub past_stall: bool,
     /// Section pitching-moment coefficient about the quarter chord, positive nose up.
     pub cm: f64,
 }
 
 impl SpanPoint {
-    /// True when the section is past its cl_max (either sign of lift).
+    /// True when the section is past its stall.
     #[must_use]
-    pub fn stalled(&self) -> bool {
-        self.cl_ratio.abs() > 1.0
+    pub const fn stalled(&self) -> bool {
+        self.past_stall
     }
 }
 
@@ -117,6 +119,44 @@ impl FreeStream {
     }
 }
 
+/// How a wing's CL_max was found.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum StallFoundBy {
+    /// Alpha stepped up until the wing lift peaked.
+    LiftPeak,
+    /// Alpha stepped up until the solver could no longer converge; the highest lift reached.
+    NoConvergence,
+    /// The lift never peaks (linear sections): the wing CL when the first section reaches
+    /// its cl_max (critical-section estimate).
+    FirstSection,
+    /// No section's lift rises with alpha: no stall to find.
+    NoStall,
+}
+
+impl StallFoundBy {
+    /// The report text (JSON `stall_found_by`).
+    #[must_use]
+    pub const fn as_str(self) -> &'static str {
+        match self {
+            Self::LiftPeak => "lift peak",
+            Self::NoConvergence => "solver stopped converging",
+            Self::FirstSection => "first section at cl_max",
+            Self::NoStall => "no stall",
+        }
+    }
+}
+
+/// The wing's maximum lift coefficient and how it was found.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct ClMax {
+    /// CL_max.
+    pub cl_max: f64,
+    /// The angle of attack where it is reached, degrees.
+    pub alpha_deg: f64,
+    /// How it was found.
+    pub found_by: StallFoundBy,
+}
+
 /// Dimensional values at the flight condition (1976 standard atmosphere).
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct Flight {
@@ -174,6 +214,8 @@ impl Flight {
 pub struct MethodReport {
     /// The method's name, as printed in reports.
     pub name: &'static str,
+    /// Its short name (`series`, `vortex`), as on the command line.
+    pub short_name: &'static str,
     /// What the resolution counts, as a report key (`terms`, `panels`).
     pub resolution_key: &'static str,
     /// The resolution (sine terms, panels).
@@ -220,6 +262,8 @@ pub struct Solution {
     pub flight: Flight,
     /// The method, its resolution and convergence, and its own numbers.
     pub method: MethodReport,
+    /// The wing's CL_max, when it was asked for.
+    pub cl_max: Option<ClMax>,
     /// The reference quantities of Cm (the `[reference]` table, planform defaults).
     pub reference: crate::wing::ReferenceValues,
     /// Where lifting-line theory is weak for this case.

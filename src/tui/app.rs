@@ -414,6 +414,7 @@ impl App {
                 self.offsets = !self.offsets;
                 self.clamp_cursor();
             }
+            Action::SwitchMethod => self.switch_method(),
             Action::Help => self.mode = Mode::Help { scroll: 0 },
             Action::Quit => {
                 if self.docs.iter().any(Doc::unsaved) {
@@ -647,6 +648,16 @@ impl App {
             source: self.current,
         });
         self.say(&msg, false);
+    }
+
+    /// Every open wing re-solved by the other method.
+    fn switch_method(&mut self) {
+        let method = self.settings.method.other();
+        self.settings.method = method;
+        for doc in &mut self.docs {
+            doc.resolve(method);
+        }
+        self.say(&format!("method: {}", method.name()), false);
     }
 
     fn toggle_target(&mut self) {

@@ -105,6 +105,8 @@ pub enum Action {
     ToggleTarget,
     /// Show or hide the x_le and z columns.
     ToggleOffsets,
+    /// Switch the solution method (series, vortex).
+    SwitchMethod,
     /// Prompt for the notebook file.
     Notebook,
     /// Show the help overlay.
@@ -469,6 +471,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::Help,
         "this help",
         Some("help"),
+    ),
+    bind(
+        &[Normal],
+        &[k('m')],
+        Action::SwitchMethod,
+        "switch the method: Glauert series / vortex lifting line (sweep, dihedral)",
+        Some("method"),
     ),
     bind(
         &[Normal],

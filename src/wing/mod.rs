@@ -20,3 +20,5 @@ pub use geometry::Geometry;
 pub use model::{Airfoil, Condition, Control, ControlKind, Section, Station, Wing};
 pub use reference::{Reference, ReferenceValues};
 pub use sections::Sections;
+
+pub(crate) use model::bracket;

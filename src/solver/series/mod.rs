@@ -445,15 +445,35 @@ impl Prepared {
             flight,
             method: MethodReport {
                 name: METHOD,
+                short_name: "series",
                 resolution_key: "terms",
                 resolution: self.per_alpha.len(),
                 iterations: 0,
                 residual: None,
                 extras: vec![("fourier", self.fourier_at(alpha))],
             },
+            cl_max: None,
             warnings,
             reference: self.reference,
         }
+    }
+
+    /// The wing's CL_max: the series is linear, so the first section to reach its cl_max
+    /// decides (critical-section estimate).
+    #[must_use]
+    pub fn cl_max(&self) -> solution::ClMax {
+        self.first_stall.map_or(
+            solution::ClMax {
+                cl_max: f64::NAN,
+                alpha_deg: f64::NAN,
+                found_by: solution::StallFoundBy::NoStall,
+            },
+            |s| solution::ClMax {
+                cl_max: s.cl_wing,
+                alpha_deg: s.alpha_deg,
+                found_by: solution::StallFoundBy::FirstSection,
+            },
+        )
     }
 
     /// Linear critical-section estimate: each output point's cl is linear in alpha, so the

@@ -59,6 +59,7 @@ impl LinearPoint {
             gamma: speed * at(self.gamma_per_speed, alpha),
             cl_max: self.cl_max,
             cl_ratio: cl / self.cl_max,
+            past_stall: cl.abs() > self.cl_max,
             cm: self.cm,
         }
     }

@@ -66,6 +66,11 @@ pub fn items(s: &Solution, reference: Option<&Solution>) -> Vec<Item> {
     add("CL_stall", stall_cl(s), reference.and_then(stall_cl), 3, "");
     let m = |s: &Solution| Some(s.flight.right_root_bending_moment);
     add("M_root", m(s), reference.and_then(m), 1, " N m");
+    out.push(Item {
+        label: "method",
+        value: format!("{} {}", s.method.short_name, s.method.resolution),
+        delta: None,
+    });
     out
 }
 
