@@ -70,9 +70,9 @@ pub fn replace(
         path: path.to_path_buf(),
         source,
     })?;
-    let io_err = |source| WriteError::Io {
+    let io_err = |source: io::Error| WriteError::Io {
         path: target.clone(),
-        source,
+        source: plain(source),
     };
     let existing = match fs::metadata(&target) {
         Ok(m) => Some(m.permissions()),
@@ -106,6 +106,16 @@ pub fn replace(
         let _ = dir.sync_all();
     }
     Ok(target)
+}
+
+/// The system's own message for an error, without the temporary file's name that some
+/// wrappers add (the user never sees that file).
+fn plain(e: io::Error) -> io::Error {
+    match (e.raw_os_error(), e.get_ref().is_some()) {
+        (Some(code), _) => io::Error::from_raw_os_error(code),
+        (None, true) if e.kind() != io::ErrorKind::Other => io::Error::from(e.kind()),
+        _ => e,
+    }
 }
 
 /// The file a path finally names: symbolic links followed (a relative link from its own

@@ -125,7 +125,7 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
     );
     format!(
         "{name} | {cond} | CL {cl} CDi {cdi} CDp {cdp} CD {cd} L/D {ld} e {e} \
-         CLa {cla}/rad Cl_roll {roll} Cn {cn} Cm {cm} Mroot {m} N m {stall} | {method} N={n} | \
+         CLa {cla}/rad Cl_roll {roll} Cn {cn} Cm {cm} {m} {stall} | {method} N={n} | \
          wing {hash}",
         name = inert(&wing.name),
         cond = condition_text(s, target_cl),
@@ -139,11 +139,45 @@ pub fn line(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         roll = fixed(c.cl_roll, 5),
         cn = fixed(c.cn, 5),
         cm = fixed(c.cm, 5),
-        m = fixed(s.flight.right_root_bending_moment, 1),
+        m = root_moments(
+            s.flight.right_root_bending_moment,
+            s.flight.left_root_bending_moment
+        ),
         method = s.method.name,
         n = s.method.resolution,
         hash = fingerprint(wing),
     )
+}
+
+/// The root bending moments for the line: one value for both halves when they agree to the
+/// printed digit, else each half named (right first, as the reference's y axis points).
+#[must_use]
+pub fn root_moments(right: f64, left: f64) -> String {
+    let (r, l) = (fixed(right, 1), fixed(left, 1));
+    if r == l {
+        format!("Mroot {r} N m each half")
+    } else {
+        format!("Mroot right {r} left {l} N m")
+    }
+}
+
+/// The result line as the notebook keeps it: [`line()`] followed by where the wing came from
+/// (its file, or none) and whether it had edits not saved to that file, so a line can be traced
+/// back to a file even when two wings share a name.
+#[must_use]
+pub fn notebook_line(
+    wing: &Wing,
+    s: &Solution,
+    target_cl: Option<f64>,
+    file: Option<&std::path::Path>,
+    unsaved: bool,
+) -> String {
+    let from = file.map_or_else(
+        || "no file".to_string(),
+        |p| format!("file {}", inert(&p.display().to_string())),
+    );
+    let mark = if unsaved { " (unsaved edits)" } else { "" };
+    format!("{}{mark} {from}", line(wing, s, target_cl))
 }
 
 /// A readable multi-line report with the spanwise table at the stations; `target_cl` as for

@@ -305,7 +305,9 @@ fn copy_appends_the_result_line_to_the_notebook() {
         doc.solved.as_ref().expect("solved"),
         doc.wing.condition.target_cl,
     );
-    assert!(notebook.trim_end().ends_with(&line), "{notebook}");
+    // The result line, then the file it came from.
+    assert!(notebook.contains(&line), "{notebook}");
+    assert!(notebook.trim_end().ends_with("tapered.toml"), "{notebook}");
     assert!(notebook.starts_with("20"), "timestamped: {notebook}");
 }
 

@@ -69,7 +69,9 @@ fn reloading_after_a_conflict_takes_their_file_and_undo_brings_mine_back() {
     press(&mut app, "l>");
     let mine = app.doc().wing.clone();
     fs::write(&path, theirs()).expect("their save");
-    press(&mut app, "sR");
+    press(&mut app, "s");
+    app.status_drawn();
+    press(&mut app, "R");
     assert_eq!(app.doc().wing.name, "Their trainer");
     press(&mut app, "u");
     assert_eq!(app.doc().wing, mine);

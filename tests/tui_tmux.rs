@@ -341,3 +341,50 @@ fn tab_completes_the_open_prompt_in_tmux() {
     tmux.keys(&["q"]);
     tmux.wait_exit();
 }
+
+#[test]
+fn two_workbenches_on_one_file_and_one_session_in_tmux() {
+    if tmux_missing() {
+        return;
+    }
+    let dir = tempfile::tempdir().expect("temp dir");
+    let wing_path: PathBuf = tui_support::write_tapered(dir.path());
+    let session = dir.path().join("session");
+    let first = Tmux::new("first");
+    first.start(&command(&session, "", &[&wing_path]));
+    first.wait_for("the first workbench", |s| s.contains("Tapered trainer"));
+    let second = Tmux::new("second");
+    second.start(&command(&session, "", &[&wing_path]));
+    let told = second.wait_for("the second workbench's notice", |s| {
+        s.contains("another workbench")
+    });
+    assert!(told.contains("Tapered trainer"), "{told}");
+
+    // The first saves a new root chord; the second's save of its own edit is refused.
+    first.keys(&["l", ">", "s"]);
+    first.wait_for("the first save", |s| s.contains("saved "));
+    second.keys(&["j", "l", ">", "s"]);
+    second.wait_for("the refusal", |s| s.contains("changed on disk"));
+    let saved = file::read(&wing_path).expect("reads");
+    assert!(
+        (saved.stations[0].chord - 1.7).abs() < 1e-12,
+        "the first save stands"
+    );
+    assert!(
+        (saved.stations[1].chord - 1.3).abs() < 1e-12,
+        "not overwritten unasked"
+    );
+
+    // The second's quit question says its edit lives only in memory.
+    second.keys(&["q"]);
+    second.wait_for("the quit question", |s| s.contains("only in memory"));
+    second.keys(&["y"]);
+    second.wait_exit();
+    first.keys(&["q"]);
+    first.wait_exit();
+    let kept = std::fs::read_to_string(session.join("session.json")).expect("session");
+    assert!(
+        !kept.contains("recovery\": \""),
+        "the second never wrote it: {kept}"
+    );
+}

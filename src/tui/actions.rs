@@ -99,7 +99,7 @@ pub fn save(app: &mut App, overwrite_changed: bool) {
         SavePlan::Write(path) => {
             if let Err(e) = write(app, &path, false) {
                 // A folder or file the system will not let us write: ask for another place.
-                let reason = format!("{e}: save as another file");
+                let reason = format!("not saved: {e}; give another path");
                 let start = path.display().to_string();
                 app.ask_save_as(&start, Some(&reason));
             }
@@ -293,7 +293,11 @@ pub fn revert(app: &mut App) {
 /// appends it to the notebook file.
 pub fn copy(app: &mut App) {
     let line = match &app.doc().solved {
-        Ok(s) => report::line(&app.doc().wing, s, app.doc().wing.condition.target_cl),
+        Ok(s) => {
+            let d = app.doc();
+            let target = d.wing.condition.target_cl;
+            report::notebook_line(&d.wing, s, target, d.path.as_deref(), d.unsaved())
+        }
         Err(reason) => {
             let msg = format!("nothing to copy: {reason}");
             app.say(&msg, true);

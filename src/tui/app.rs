@@ -9,6 +9,7 @@ use super::cells::{self, Field, Sheet};
 use super::doc::{Cursor, Doc};
 use super::editor::{Editor, Purpose};
 use super::keymap::{self, Action, Dir, ModeKind};
+use super::layout_rules;
 use super::picker::{self, Picker};
 use super::rows::{self, NewRow};
 use super::theme::Theme;
@@ -166,7 +167,7 @@ impl App {
             outbox: Vec::new(),
             quit: false,
             session_changed: false,
-            size: Size::new(super::view::MIN_WIDTH, super::view::MIN_HEIGHT),
+            size: Size::new(layout_rules::MIN_WIDTH, layout_rules::MIN_HEIGHT),
             overwrite_armed: false,
             session_state: SessionState::Kept,
             session_lock: None,
@@ -198,9 +199,20 @@ impl App {
     }
 
     /// Sets the status line (cleaning the text).
+    ///
+    /// A failure the user has not seen yet (keys typed ahead are handled before the next
+    /// frame) is not replaced: a later failure is put before it, later good news is dropped.
     pub fn say(&mut self, text: &str, error: bool) {
+        let text = inert(text);
+        if self.status.error && !self.status.shown {
+            if error && !self.status.text.contains(&text) {
+                self.status.text = format!("{text}; before that: {}", self.status.text);
+                self.status.serial += 1;
+            }
+            return;
+        }
         self.status = Status {
-            text: inert(text),
+            text,
             error,
             shown: false,
             serial: self.status.serial + 1,
@@ -271,7 +283,7 @@ impl App {
     /// small" is shown then).
     #[must_use]
     pub fn too_small(&self) -> bool {
-        self.size.width < super::view::MIN_WIDTH || self.size.height < super::view::MIN_HEIGHT
+        layout_rules::too_small(self.size)
     }
 
     /// While nothing but "terminal too small" can be seen, a key must not change what the
@@ -328,7 +340,7 @@ impl App {
 
     /// Scrolls the help, never past its last line (so Up answers at once after a long Down).
     fn help(&mut self, action: Action) {
-        let max = super::view::help::max_scroll(self.size);
+        let max = layout_rules::help_max_scroll(self.size);
         let page = i32::from(self.size.height.saturating_sub(3).max(1));
         let Mode::Help { scroll } = &mut self.mode else {
             return;
@@ -592,19 +604,33 @@ impl App {
     fn add_row(&mut self, how: NewRow) {
         let Cursor { sheet, row, .. } = self.doc().cursor;
         let mut wing = self.doc().wing.clone();
-        let Some(new_row) = rows::add_row(&mut wing, sheet, row, how) else {
-            self.say(&format!("cannot add a row to {}", sheet.name()), true);
-            return;
+        let before: std::collections::BTreeSet<String> = wing.airfoils.keys().cloned().collect();
+        let new_row = match rows::add_row(&mut wing, sheet, row, how) {
+            Ok(new_row) => new_row,
+            Err(why) => {
+                self.say(&why, true);
+                return;
+            }
         };
         let result = self.accept(wing);
         if result.is_ok() {
             self.doc_mut().cursor.row = new_row;
         }
-        let done = match how {
-            NewRow::Insert => "row inserted",
-            NewRow::Duplicate => "row duplicated",
+        let blended = self
+            .doc()
+            .wing
+            .airfoils
+            .keys()
+            .find(|k| result.is_ok() && !before.contains(k.as_str()) && k.ends_with("-blend"));
+        let done = match (how, blended) {
+            (NewRow::Insert, Some(key)) => format!(
+                "row inserted with airfoil `{key}`, the halfway blend of its neighbours' \
+                 airfoils, so the wing is unchanged"
+            ),
+            (NewRow::Insert, None) => "row inserted".into(),
+            (NewRow::Duplicate, _) => "row duplicated".into(),
         };
-        self.refuse_or(result, done);
+        self.refuse_or(result, &done);
     }
 
     fn delete_row(&mut self) {

@@ -41,17 +41,53 @@ pub fn tmux_load_buffer(text: &str) -> io::Result<()> {
     }
 }
 
-/// Appends `timestamp  line` to the notebook file, creating it and its folder if needed.
+/// Appends `timestamp  line` to the notebook file as one whole line or nothing, creating the
+/// file and its folder if needed. The line goes to the end in a single write; a short write
+/// (a full disk) is cut back off, so no torn line stays; a last line left torn before (by
+/// another program, or a crash) is ended first, so the new line starts on its own.
 ///
 /// # Errors
-/// When the folder or file cannot be created or written.
+/// When the folder or file cannot be created or written; the file is then as it was.
 pub fn append_notebook(path: &Path, timestamp: &str, line: &str) -> io::Result<()> {
     if let Some(parent) = path.parent().filter(|p| !p.as_os_str().is_empty()) {
         std::fs::create_dir_all(parent)?;
     }
-    let mut file = OpenOptions::new().create(true).append(true).open(path)?;
-    writeln!(file, "{timestamp}  {line}")?;
-    file.sync_data()
+    let mut file = OpenOptions::new()
+        .read(true)
+        .create(true)
+        .append(true)
+        .open(path)?;
+    let before = file.metadata()?.len();
+    let mut record = String::new();
+    if before > 0 && !ends_with_newline(&mut file, before)? {
+        record.push('\n');
+    }
+    record.push_str(&format!("{timestamp}  {line}\n"));
+    let written = file.write(record.as_bytes());
+    match written {
+        Ok(n) if n == record.len() => file.sync_data(),
+        Ok(n) => {
+            file.set_len(before)?;
+            Err(io::Error::new(
+                io::ErrorKind::WriteZero,
+                format!("only {n} of {} bytes could be written", record.len()),
+            ))
+        }
+        Err(e) => {
+            // Whatever part reached the file goes again.
+            let _ = file.set_len(before);
+            Err(e)
+        }
+    }
+}
+
+/// Whether the file's last byte (of `len`) is a line break.
+fn ends_with_newline(file: &mut std::fs::File, len: u64) -> io::Result<bool> {
+    use std::io::{Read as _, Seek as _, SeekFrom};
+    file.seek(SeekFrom::Start(len - 1))?;
+    let mut last = [0_u8; 1];
+    file.read_exact(&mut last)?;
+    Ok(last[0] == b'\n')
 }
 
 /// The current time as `YYYY-MM-DDTHH:MM:SSZ` (UTC).
@@ -120,5 +156,27 @@ mod tests {
         append_notebook(&path, "T2", "second").expect("append");
         let text = std::fs::read_to_string(&path).expect("read");
         assert_eq!(text, "T1  first\nT2  second\n");
+    }
+
+    #[test]
+    fn a_torn_last_line_is_ended_before_the_next_line() {
+        let dir = tempfile::tempdir().expect("temp dir");
+        let path = dir.path().join("notebook.txt");
+        std::fs::write(&path, "T1  first\nT2  sec").expect("write");
+        append_notebook(&path, "T3", "third").expect("append");
+        let text = std::fs::read_to_string(&path).expect("read");
+        assert_eq!(text, "T1  first\nT2  sec\nT3  third\n");
+    }
+
+    #[test]
+    fn a_full_disk_leaves_the_notebook_as_it_was() {
+        // /dev/full accepts an open and refuses every write with "no space left".
+        let full = Path::new("/dev/full");
+        if !full.exists() {
+            eprintln!("skipped: no /dev/full here");
+            return;
+        }
+        let err = append_notebook(full, "T1", "line").expect_err("disk full");
+        assert!(err.to_string().to_lowercase().contains("space"), "{err}");
     }
 }

@@ -12,6 +12,7 @@ pub mod complete;
 pub mod doc;
 pub mod editor;
 pub mod keymap;
+pub mod layout_rules;
 pub mod persist;
 pub mod picker;
 pub mod rows;
@@ -19,6 +20,7 @@ pub mod starter;
 pub mod terminal;
 pub mod theme;
 pub mod view;
+pub mod wrap;
 
 use std::io;
 use std::path::{Path, PathBuf};

@@ -2,22 +2,35 @@
 //! copies, and the rules that keep a deletion from breaking the wing.
 
 use super::cells::{airfoil_key, Sheet};
+use crate::wing::file::tidy;
 use crate::wing::{Airfoil, Control, ControlKind, Station, Wing};
 
 /// How a new row is made.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub enum NewRow {
-    /// Interpolated halfway between the selected station and the next one.
+    /// Interpolated halfway between the selected station and the next one, every property
+    /// (the airfoil too: see [`add_row`]), so the wing itself is unchanged.
     Insert,
     /// A copy of the selected row (for a station: its values, placed halfway to a neighbour).
     Duplicate,
 }
 
-/// Adds a row after `row`; returns the new row's index, or `None` when the sheet has no rows
-/// to add to.
-pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option<usize> {
+/// Adds a row after `row`; returns the new row's index.
+///
+/// # Errors
+/// Why no row can be added there: a sheet without rows to add to, or a station between two
+/// different table airfoils (see [`halfway_airfoil`]).
+pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Result<usize, String> {
     match sheet {
         Sheet::Stations => add_station(wing, row, how),
+        _ => add_other(wing, sheet, row, how)
+            .ok_or_else(|| format!("cannot add a row to {}", sheet.name())),
+    }
+}
+
+fn add_other(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option<usize> {
+    match sheet {
+        Sheet::Stations | Sheet::Condition => None,
         Sheet::Airfoils => {
             let key = airfoil_key(wing, row)?.to_string();
             let airfoil: Airfoil = wing.airfoils.get(&key).cloned().unwrap_or_default();
@@ -36,7 +49,6 @@ pub fn add_row(wing: &mut Wing, sheet: Sheet, row: usize, how: NewRow) -> Option
             wing.controls.insert(at, control);
             Some(at)
         }
-        Sheet::Condition => None,
     }
 }
 
@@ -53,21 +65,22 @@ fn default_control(wing: &Wing) -> Control {
     }
 }
 
-fn add_station(wing: &mut Wing, row: usize, how: NewRow) -> Option<usize> {
+fn add_station(wing: &mut Wing, row: usize, how: NewRow) -> Result<usize, String> {
     let n = wing.stations.len();
     if n < 2 {
-        return None;
+        return Err("cannot add a row to stations".into());
     }
     // Between `row` and the next; the tip station pairs with the one inboard of it.
     let a = row.min(n - 2);
-    let (p, q) = (&wing.stations[a], &wing.stations[a + 1]);
-    let mid = |u: f64, v: f64| 0.5 * (u + v);
+    let (p, q) = (wing.stations[a].clone(), wing.stations[a + 1].clone());
+    let mid = |u: f64, v: f64| tidy(0.5 * (u + v));
     let station = match how {
         NewRow::Insert => Station {
             y: mid(p.y, q.y),
             chord: mid(p.chord, q.chord),
             twist_deg: mid(p.twist_deg, q.twist_deg),
-            airfoil: p.airfoil.clone(),
+            airfoil: halfway_airfoil(wing, &p.airfoil, &q.airfoil)
+                .map_err(|why| format!("cannot insert after station {}: {why}", a + 1))?,
             x_le: mid(p.x_le, q.x_le),
             z: mid(p.z, q.z),
         },
@@ -77,7 +90,54 @@ fn add_station(wing: &mut Wing, row: usize, how: NewRow) -> Option<usize> {
         },
     };
     wing.stations.insert(a + 1, station);
-    Some(a + 1)
+    Ok(a + 1)
+}
+
+/// The airfoil for a station inserted halfway between stations with airfoils `a` and `b`.
+/// Between stations every section property varies linearly, so the section halfway is the
+/// even blend of the two: with one airfoil on both sides that is the airfoil itself; else an
+/// airfoil `a-b-blend` holding the blend is added (or reused), and the wing is unchanged.
+///
+/// # Errors
+/// When either airfoil is given by a table: the blend of two tables is not a table an airfoil
+/// can hold, so no station there can leave the wing as it is.
+fn halfway_airfoil(wing: &mut Wing, a: &str, b: &str) -> Result<String, String> {
+    if a == b {
+        return Ok(a.to_string());
+    }
+    let (Some(pa), Some(pb)) = (wing.airfoils.get(a), wing.airfoils.get(b)) else {
+        return Ok(a.to_string());
+    };
+    if pa.table.is_some() || pb.table.is_some() {
+        return Err(format!(
+            "the section between `{a}` and `{b}` blends a table airfoil, which no single \
+             airfoil can hold, so a station there would change the wing; insert where one \
+             airfoil lies on both sides, or duplicate (D) and set its airfoil"
+        ));
+    }
+    let blend = blend(pa, pb);
+    let base = format!("{a}-{b}-blend");
+    let key = std::iter::once(base.clone())
+        .chain((2..).map(|n| format!("{base}-{n}")))
+        .find(|k| wing.airfoils.get(k).is_none_or(|f| *f == blend))
+        .unwrap_or(base);
+    wing.airfoils.insert(key.clone(), blend);
+    Ok(key)
+}
+
+/// The even blend of two airfoils, property by property (the rule between stations).
+fn blend(a: &Airfoil, b: &Airfoil) -> Airfoil {
+    let mid = |u: f64, v: f64| tidy(0.5 * (u + v));
+    Airfoil {
+        lift_slope: mid(a.lift_slope, b.lift_slope),
+        alpha_zero_lift_deg: mid(a.alpha_zero_lift_deg, b.alpha_zero_lift_deg),
+        cl_max: mid(a.cl_max, b.cl_max),
+        cd0: mid(a.cd0, b.cd0),
+        cd1: mid(a.cd1, b.cd1),
+        cd2: mid(a.cd2, b.cd2),
+        cm0: mid(a.cm0, b.cm0),
+        table: None,
+    }
 }
 
 /// Fewest stations a wing can have.

@@ -1,93 +1,22 @@
-//! The `?` overlay: the cautions, then every key of every mode, generated from the key table
-//! and wrapped to the overlay's width so every line can be read at the smallest size.
+//! The `?` overlay: draws the help text laid out by [`crate::tui::layout_rules`] (the
+//! cautions, then every key of every mode, wrapped to the overlay's width).
 
 use ratatui::buffer::Buffer;
-use ratatui::layout::{Rect, Size};
+use ratatui::layout::Rect;
 use ratatui::style::Style;
 use ratatui::text::{Line, Span};
 use ratatui::widgets::Widget;
 
-use super::wrap::wrap;
-use super::{block, fit, overlay, put};
+use super::{block, overlay, put};
 use crate::tui::app::{App, Mode};
-use crate::tui::keymap::{self, ModeKind, CAUTIONS};
-
-/// Width of the keys column.
-const KEYS: usize = 18;
-/// Widest the overlay grows.
-const MAX_WIDTH: u16 = 100;
-
-/// What a help line is, for its style.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Kind {
-    /// A key and what it does.
-    Plain,
-    /// A mode's heading.
-    Heading,
-    /// One of the cautions.
-    Caution,
-}
-
-/// The help text wrapped to `width` columns, line by line. A key's description that does
-/// not fit continues under the description column.
-#[must_use]
-pub fn lines(width: u16) -> Vec<(String, Kind)> {
-    let width = usize::from(width).max(1);
-    let mut out: Vec<(String, Kind)> = CAUTIONS
-        .iter()
-        .flat_map(|c| wrap(c, width))
-        .map(|l| (l, Kind::Caution))
-        .collect();
-    // Too narrow for two columns: the keys go on a line of their own.
-    let indent = if width >= KEYS + 21 { KEYS + 1 } else { 2 };
-    for mode in ModeKind::ALL {
-        out.push((String::new(), Kind::Plain));
-        out.extend(
-            wrap(mode.title(), width)
-                .into_iter()
-                .map(|l| (l, Kind::Heading)),
-        );
-        for (keys, help) in keymap::help(mode) {
-            let mut rest = wrap(help, width - indent.min(width - 1)).into_iter();
-            if indent > KEYS && keys.chars().count() <= KEYS {
-                let first = rest.next().unwrap_or_default();
-                out.push((format!("{} {first}", fit(&keys, KEYS, false)), Kind::Plain));
-            } else {
-                out.extend(wrap(&keys, width).into_iter().map(|l| (l, Kind::Plain)));
-            }
-            let pad = " ".repeat(indent.min(width - 1));
-            out.extend(rest.map(|l| (format!("{pad}{l}"), Kind::Plain)));
-        }
-    }
-    out
-}
-
-/// The overlay's rectangle in a screen of `area`.
-fn frame(area: Rect) -> Rect {
-    Rect {
-        width: MAX_WIDTH.min(area.width),
-        ..area
-    }
-}
-
-/// The text area inside the overlay's border for a screen of `size`.
-fn inner_size(size: Size) -> Size {
-    let rect = frame(Rect::new(0, 0, size.width, size.height));
-    Size::new(rect.width.saturating_sub(2), rect.height.saturating_sub(2))
-}
-
-/// The furthest the help can scroll on a screen of `size` (the last line at the bottom).
-#[must_use]
-pub fn max_scroll(size: Size) -> u16 {
-    let inner = inner_size(size);
-    let total = lines(inner.width).len();
-    u16::try_from(total.saturating_sub(usize::from(inner.height))).unwrap_or(u16::MAX)
-}
+use crate::tui::layout_rules::{help_frame, HelpKind};
+/// The help text and its scroll limit, under the names the overlay's callers know.
+pub use crate::tui::layout_rules::{help_lines as lines, help_max_scroll as max_scroll};
 
 /// Draws the overlay, scrolled by the help mode's offset.
 pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     let t = &app.theme;
-    let f = frame(area);
+    let f = help_frame(area);
     let rect = overlay(area, f.width, f.height, buf);
     let inner_width = rect.width.saturating_sub(2);
     let all = lines(inner_width);
@@ -117,9 +46,9 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     outer.render(rect, buf);
     for (i, (text, kind)) in all.iter().skip(scroll).take(rows).enumerate() {
         let style: Style = match kind {
-            Kind::Heading => t.header,
-            Kind::Caution => t.warning,
-            Kind::Plain => t.text,
+            HelpKind::Heading => t.header,
+            HelpKind::Caution => t.warning,
+            HelpKind::Plain => t.text,
         };
         let y = inner.y + u16::try_from(i).unwrap_or(0);
         put(buf, inner.x, y, inner.width, text, style);

@@ -9,7 +9,6 @@ pub mod sparkline;
 pub mod status;
 pub mod table;
 pub mod wingbar;
-pub mod wrap;
 
 use ratatui::buffer::Buffer;
 use ratatui::layout::{Constraint, Layout, Rect};
@@ -19,18 +18,16 @@ use ratatui::widgets::{Block, Clear, Paragraph, Widget, Wrap};
 
 use super::app::{App, Mode};
 use super::cells::Sheet;
+use super::layout_rules::{self, MIN_HEIGHT, MIN_WIDTH};
+pub use super::wrap::fit;
 use crate::solver::Solution;
 
-/// Smallest terminal the workbench lays out in.
-pub const MIN_WIDTH: u16 = 80;
-/// Smallest terminal height.
-pub const MIN_HEIGHT: u16 = 24;
 /// Rows of the results strip without a reference.
 pub const STRIP_HEIGHT: u16 = 4;
 
 /// Draws the whole workbench into `area` of `buf`.
 pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
-    if area.width < MIN_WIDTH || area.height < MIN_HEIGHT {
+    if layout_rules::too_small(area.as_size()) {
         too_small(app, area, buf);
         return;
     }
@@ -125,17 +122,6 @@ pub fn solution_or_reason<'a>(
         put(buf, area.x, area.y, area.width, &text, style);
     }
     None
-}
-
-/// `text` cut or padded to exactly `width` characters, right-aligned when `right`.
-#[must_use]
-pub fn fit(text: &str, width: usize, right: bool) -> String {
-    let cut: String = text.chars().take(width).collect();
-    if right {
-        format!("{cut:>width$}")
-    } else {
-        format!("{cut:<width$}")
-    }
 }
 
 /// A bordered block with the theme's border glyphs; the title is highlighted when focused.

@@ -5,11 +5,11 @@ use ratatui::layout::Rect;
 use ratatui::widgets::Widget;
 
 use super::put;
-use super::wrap::{fit_paths, wrap};
 use crate::text::inert;
 use crate::tui::app::{App, Mode};
 use crate::tui::editor::Purpose;
 use crate::tui::keymap;
+use crate::tui::wrap::{fit_paths, wrap};
 
 /// Draws the status line.
 pub fn render(app: &App, area: Rect, buf: &mut Buffer) {

@@ -1,5 +1,5 @@
 //! The wing bar: open wings, the current one marked, unsaved ones starred, the reference
-//! tagged. The current wing's name is shown whole when it fits the screen; the others share
+//! tagged, wings of the same name told apart by their file's stem. The current wing's name is shown whole when it fits the screen; the others share
 //! what is left, and wings that do not fit are counted at the ends.
 
 use ratatui::buffer::Buffer;
@@ -56,7 +56,7 @@ pub fn labels(app: &App, width: u16) -> Vec<(String, bool)> {
             let pinned = app.reference.as_ref().is_some_and(|r| r.source == i);
             Entry {
                 prefix: format!("{}{}:", if current { t.glyphs.current } else { " " }, i + 1),
-                name: inert(doc.title()).chars().collect(),
+                name: inert(&tab_name(app, i)).chars().collect(),
                 suffix: format!(
                     "{}{}",
                     if doc.unsaved() { "*" } else { "" },
@@ -123,6 +123,22 @@ pub fn labels(app: &App, width: u16) -> Vec<(String, bool)> {
         out.push((format!("+{}", entries.len() - shown.1), false));
     }
     out
+}
+
+/// The name on a wing's tab: the wing's name, or when another open wing has the same name,
+/// its file's stem first (so a cut name still tells the variants apart) and the name after.
+#[must_use]
+pub fn tab_name(app: &App, i: usize) -> String {
+    let doc = &app.docs[i];
+    let twins = app.docs.iter().filter(|d| d.title() == doc.title()).count();
+    if twins < 2 {
+        return doc.title().to_string();
+    }
+    let stem = doc.path.as_deref().and_then(std::path::Path::file_stem);
+    match stem {
+        Some(stem) => format!("{} ({})", stem.to_string_lossy(), doc.title()),
+        None => format!("no file ({})", doc.title()),
+    }
 }
 
 /// Draws the wing bar.

@@ -84,6 +84,17 @@ pub fn fit_paths(text: &str, width: usize, ellipsis: &str) -> String {
     words.join(" ")
 }
 
+/// `text` cut or padded to exactly `width` characters, right-aligned when `right`.
+#[must_use]
+pub fn fit(text: &str, width: usize, right: bool) -> String {
+    let cut: String = text.chars().take(width).collect();
+    if right {
+        format!("{cut:>width$}")
+    } else {
+        format!("{cut:<width$}")
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
