@@ -327,3 +327,24 @@ fn a_50000_station_wing_saves_from_the_workbench_with_its_comments() {
     let again = gammaline::wing::file::parse(&text, &path).expect("reads back");
     assert_eq!(again, app.doc().wing);
 }
+
+#[test]
+fn unsaved_edits_restored_from_the_session_do_not_overwrite_a_file_changed_meanwhile() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let path = write_tapered(dir.path());
+    let mut first = launch(dir.path(), vec![path.clone()]);
+    press(&mut first, "l>");
+    persist::save_session(&mut first);
+    drop(first);
+    // Someone changes the file while no workbench is open.
+    fs::write(&path, theirs()).expect("their save");
+    let mut again = launch(dir.path(), vec![]);
+    assert!(again.doc().unsaved(), "the edit came back");
+    press(&mut again, "s");
+    assert!(
+        again.status.text.contains("changed on disk"),
+        "{}",
+        again.status.text
+    );
+    assert_eq!(fs::read_to_string(&path).expect("read"), theirs());
+}

@@ -197,19 +197,23 @@ fn is_read_only(path: &Path) -> bool {
     std::fs::metadata(path).is_ok_and(|m| m.permissions().readonly())
 }
 
-/// Whether `path` is one of the bundled example wings.
+/// Whether `path` is one of the bundled example wings (in the repository's `wings` folder,
+/// not in a `wings` folder of the user's own).
 #[must_use]
 pub fn is_example(app: &App, path: &Path) -> bool {
     let Some(examples) = &app.settings.examples else {
         return false;
     };
     let folder = |p: &Path| p.parent().map(Path::to_path_buf);
-    let file = path.canonicalize().ok();
-    let dir = examples.canonicalize().ok();
-    match (file, dir) {
-        (Some(f), Some(d)) => folder(&f).is_some_and(|f| f == d),
-        _ => false,
-    }
+    let (Some(file), Some(dir)) = (path.canonicalize().ok(), examples.canonicalize().ok()) else {
+        return false;
+    };
+    // A `wings` folder of the user's own in the working folder is offered in the picker like
+    // the examples, but its files are the user's to save.
+    let repository = Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
+    let own = Path::new("wings").canonicalize().ok() == Some(dir.clone())
+        && repository.canonicalize().ok() != Some(dir.clone());
+    !own && folder(&file).is_some_and(|f| f == dir)
 }
 
 /// A new file name for a copy of `path`, in the current folder.
