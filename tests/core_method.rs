@@ -146,3 +146,20 @@ fn the_solution_reports_its_method() {
         "CL = pi AR A_1"
     );
 }
+
+#[test]
+fn the_vortex_method_applies_the_same_prandtl_glauert_correction() {
+    // Anderson, Fundamentals of Aerodynamics, eq. 11.52, as in the series test above: the
+    // compressible wing equals the incompressible one with each section slope divided by beta.
+    let w = rectangular(6.0);
+    let fast = at(4.0, 0.5 * 340.294, 0.0);
+    let beta = compressibility::beta(&fast);
+    let compressible = solver::solve(&w, &fast, Method::vortex(40)).expect("solves");
+    let mut slow_wing = w.clone();
+    for a in slow_wing.airfoils.values_mut() {
+        a.lift_slope /= beta;
+    }
+    let slow = solver::solve(&slow_wing, &at(4.0, 20.0, 0.0), Method::vortex(40)).expect("solves");
+    assert!(rel(compressible.coefficients.cl, slow.coefficients.cl) < 1e-10);
+    assert!(rel(compressible.coefficients.cdi, slow.coefficients.cdi) < 1e-10);
+}

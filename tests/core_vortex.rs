@@ -379,3 +379,58 @@ fn linear_sections_give_the_first_section_estimate_as_cl_max() {
         .expect("stalls");
     assert!(rel(m.cl_max, first.cl_wing) < 1e-12);
 }
+
+/// A table exactly linear (0.1 per degree, zero lift at -2 deg) from -8 to 10 deg that bends
+/// over to a peak of 1.45 at 14 deg and drops past it (invented).
+fn table_linear_below_stall() -> gammaline::wing::Airfoil {
+    use gammaline::wing::table::{Columns, SectionTable, TableSource};
+    let alpha: Vec<f64> = (-4..=8).map(|i| 2.0 * f64::from(i)).collect();
+    let mut cl: Vec<f64> = alpha.iter().map(|a| 0.1 * (a + 2.0)).collect();
+    cl[10] = 1.32;
+    cl[11] = 1.45;
+    cl[12] = 1.30;
+    let cd = alpha.iter().map(|a| 0.008 + 0.0001 * a * a).collect();
+    let columns = Columns {
+        alpha_deg: alpha,
+        cl,
+        cd,
+        cm: None,
+    };
+    let table = SectionTable::new(TableSource::Inline, columns).expect("a valid table");
+    gammaline::wing::Airfoil::from_table(table, None)
+}
+
+#[test]
+fn a_table_linear_below_stall_gives_the_linear_answer_and_a_lift_peak() {
+    // Issue 8.6: a table airfoil that is linear below stall gives the linear answer (the
+    // monotone cubic reproduces straight rows exactly: Fritsch & Carlson, SIAM J. Numer.
+    // Anal. 17(2), 1980); past the bend the wing lift peaks below the section's 1.45.
+    let mut linear = unswept(tapered(8.0, 0.5));
+    let line = gammaline::wing::Airfoil {
+        lift_slope: 0.1_f64.to_degrees(),
+        alpha_zero_lift_deg: -2.0,
+        cl_max: 1.45,
+        ..gammaline::wing::Airfoil::default()
+    };
+    linear.airfoils.insert("a".into(), line);
+    let mut tabled = linear.clone();
+    tabled
+        .airfoils
+        .insert("a".into(), table_linear_below_stall());
+    let (a, b) = (vortex_at(&linear, 4.0, 40), vortex_at(&tabled, 4.0, 40));
+    assert!(rel(b.coefficients.cl, a.coefficients.cl) < 1e-10);
+    assert!(rel(b.coefficients.cdi, a.coefficients.cdi) < 1e-10);
+    let m = solver::prepare(&tabled, Method::vortex(40))
+        .expect("prepares")
+        .cl_max()
+        .expect("searches");
+    assert!(
+        matches!(
+            m.found_by,
+            gammaline::solver::StallFoundBy::LiftPeak
+                | gammaline::solver::StallFoundBy::NoConvergence
+        ),
+        "{m:?}"
+    );
+    assert!(m.cl_max > 1.0 && m.cl_max < 1.45, "{m:?}");
+}

@@ -19,7 +19,8 @@ use crate::wing::validate::Problem;
 use crate::wing::{Condition, Geometry, Wing};
 
 pub use method::{
-    Method, DEFAULT_PANELS, DEFAULT_TERMS, MAX_PANELS, MAX_TERMS, MIN_PANELS, MIN_TERMS,
+    Method, DEFAULT_MAX_ITER, DEFAULT_PANELS, DEFAULT_TERMS, DEFAULT_TOL, MAX_PANELS, MAX_TERMS,
+    MIN_PANELS, MIN_TERMS,
 };
 pub use solution::{
     ClMax, Coefficients, FirstStall, Flight, FreeStream, MethodReport, Solution, SpanPoint,

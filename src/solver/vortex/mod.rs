@@ -269,7 +269,8 @@ impl Prepared {
     }
 
     /// The wing's CL_max: alpha stepped up from zero with continuation until the lift peaks
-    /// (refined to 0.01 deg) or Newton fails (the step halved to 0.01 deg first); when the
+    /// (the drop bracketed to 0.01 deg, then the peak found by golden section to 0.001 deg
+    /// over the last step either side) or Newton fails (the step halved to 0.01 deg first); when the
     /// sections' lift never bends, the first section to reach cl_max decides instead.
     ///
     /// # Errors
@@ -278,6 +279,8 @@ impl Prepared {
         let mut state = self.state_at(0.0, None)?;
         let mut best = (self.lift_of(&state.g), 0.0_f64);
         let mut step = 1.0_f64.to_radians();
+        // The step that reached the best point: the peak lies within it behind, or ahead.
+        let mut came_by = step;
         let finest = 0.01_f64.to_radians();
         let limit = crate::wing::validate::MAX_ALPHA_DEG.to_radians() * 0.5;
         let mut found_by = None;
@@ -288,12 +291,15 @@ impl Prepared {
                     if cl < best.0 {
                         if step <= finest {
                             found_by = Some(StallFoundBy::LiftPeak);
+                            let around = (state.alpha - came_by, state.alpha + step);
+                            best = self.refine_peak(&state, around, best);
                             break;
                         }
                         step *= 0.25;
                         continue;
                     }
                     best = (cl, next.alpha);
+                    came_by = step;
                     state = next;
                 }
                 Err(SolveError::NotConverged { .. }) if step > finest => step *= 0.25,
@@ -312,6 +318,41 @@ impl Prepared {
             },
             None => self.first_section_cl_max()?,
         })
+    }
+
+    /// Golden-section search for the lift peak on `(lo, hi)` (radians), each solve started
+    /// from the state near the peak; keeps `best` (CL, alpha) if nothing beats it.
+    fn refine_peak(
+        &self,
+        near: &State,
+        (mut lo, mut hi): (f64, f64),
+        best: (f64, f64),
+    ) -> (f64, f64) {
+        const GOLDEN: f64 = 0.618_033_988_749_894_9;
+        let lift = |alpha: f64| {
+            self.state_at(alpha, Some(&near.g))
+                .map_or(f64::NEG_INFINITY, |s| self.lift_of(&s.g))
+        };
+        let mut out = best;
+        let (mut a, mut b) = (hi - GOLDEN * (hi - lo), lo + GOLDEN * (hi - lo));
+        let (mut fa, mut fb) = (lift(a), lift(b));
+        while hi - lo > 1e-3_f64.to_radians() {
+            if fa > fb {
+                (hi, b, fb) = (b, a, fa);
+                a = hi - GOLDEN * (hi - lo);
+                fa = lift(a);
+            } else {
+                (lo, a, fa) = (a, b, fb);
+                b = lo + GOLDEN * (hi - lo);
+                fb = lift(b);
+            }
+        }
+        for (cl, alpha) in [(fa, a), (fb, b)] {
+            if cl > out.0 {
+                out = (cl, alpha);
+            }
+        }
+        out
     }
 
     fn first_section_cl_max(&self) -> Result<ClMax, SolveError> {
