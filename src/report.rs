@@ -6,7 +6,7 @@ use std::fmt::Write as _;
 use serde_json::{json, Value};
 
 use crate::solver::{Coefficients, Solution, SpanPoint, SweepPoint};
-use crate::text::{fixed, inert, readable, unsigned_zero};
+use crate::text::{fit_number, fixed, inert, readable, unsigned_zero};
 use crate::wing::{fingerprint, Geometry, Wing};
 
 /// How the condition was set, for the notebook line: a wing solved for a target CL says so
@@ -300,13 +300,13 @@ pub fn table(wing: &Wing, s: &Solution, target_cl: Option<f64>) -> String {
         let _ = writeln!(
             out,
             "{:>9} {:>8} {:>8} {:>8} {:>9} {:>9} {:>8}",
-            fixed(p.y, 4),
-            fixed(p.chord, 4),
-            fixed(p.cl, 4),
-            fixed(p.span_load, 4),
-            fixed(p.alpha_i_deg, 4),
-            fixed(p.gamma, 4),
-            fixed(p.cl_ratio, 3)
+            fit_number(p.y, 4, 9),
+            fit_number(p.chord, 4, 8),
+            fit_number(p.cl, 4, 8),
+            fit_number(p.span_load, 4, 8),
+            fit_number(p.alpha_i_deg, 4, 9),
+            fit_number(p.gamma, 4, 9),
+            fit_number(p.cl_ratio, 3, 8)
         );
     }
     out
@@ -582,14 +582,14 @@ pub fn sweep(wing: &Wing, table: &SweepTable, style: SweepStyle) -> String {
                 let _ = writeln!(
                     out,
                     "{:>8} {:>8} {:>9} {:>9} {:>9} {:>7} {:>7} {:>9}{flag}",
-                    fixed(c.alpha_deg, 2),
-                    fixed(c.cl, 4),
-                    fixed(c.cdi, 5),
-                    fixed(c.cdp, 5),
-                    fixed(c.cd, 5),
+                    fit_number(c.alpha_deg, 2, 8),
+                    fit_number(c.cl, 4, 8),
+                    fit_number(c.cdi, 5, 9),
+                    fit_number(c.cdp, 5, 9),
+                    fit_number(c.cd, 5, 9),
                     opt(c.e, 4),
-                    opt(ld(c), 1),
-                    fixed(q * g.area * c.cl, 1)
+                    ld(c).map_or_else(|| "n/a".to_string(), |v| fit_number(v, 1, 7)),
+                    fit_number(q * g.area * c.cl, 1, 9)
                 );
             }
             out

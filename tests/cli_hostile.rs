@@ -120,18 +120,33 @@ fn assert_inert(args: &[&std::ffi::OsStr], o: &Output) {
 fn run_all(path: &Path, extra_runs: &[&[&str]]) -> Vec<Output> {
     let p = path.as_os_str();
     let mut runs: Vec<Vec<&std::ffi::OsStr>> = vec![vec!["check".as_ref(), p]];
+    let designed = path.with_file_name(format!("designed{HOSTILE}.toml"));
+    let os = |t: &'static str| -> &std::ffi::OsStr { t.as_ref() };
     for format in ["line", "table", "json", "csv"] {
+        let f = os(format);
+        runs.push(vec![os("solve"), p, os("--format"), f]);
+        runs.push(vec![os("sweep"), p, os("--format"), f]);
         runs.push(vec![
-            "solve".as_ref(),
+            os("loads"),
             p,
-            "--format".as_ref(),
-            format.as_ref(),
+            os("--mass"),
+            os("5"),
+            os("--load-factor"),
+            os("2"),
+            os("--format"),
+            f,
         ]);
         runs.push(vec![
-            "sweep".as_ref(),
+            os("design"),
             p,
-            "--format".as_ref(),
-            format.as_ref(),
+            os("--cl"),
+            os("0.3"),
+            os("--loading"),
+            os("elliptic"),
+            os("--output"),
+            designed.as_os_str(),
+            os("--format"),
+            f,
         ]);
     }
     for extra in extra_runs {

@@ -14,7 +14,16 @@ use gammaline::wing::Wing;
 const COUNTS: [usize; 12] = [10, 20, 30, 40, 60, 80, 120, 160, 240, 320, 480, 640];
 const REFERENCE_TERMS: usize = 1000;
 
-const LABELS: [&str; 7] = ["CL_alpha /rad", "CL", "CDi", "e", "delta", "Cl_roll", "CDp"];
+const LABELS: [&str; 8] = [
+    "CL_alpha /rad",
+    "CL",
+    "CDi",
+    "e",
+    "delta",
+    "Cl_roll",
+    "CDp",
+    "CL_first_stall",
+];
 const CL_ALPHA: usize = 0;
 const CL: usize = 1;
 const CDI: usize = 2;
@@ -22,11 +31,17 @@ const E: usize = 3;
 const DELTA: usize = 4;
 const CL_ROLL: usize = 5;
 const CDP: usize = 6;
+const CL_STALL: usize = 7;
 
-/// The quantities of [`LABELS`]; all but CL_alpha at alpha = 5 deg.
-fn quantities(wing: &Wing, terms: usize) -> [f64; 7] {
+/// The quantities of [`LABELS`]; all but CL_alpha and CL_first_stall at alpha = 5 deg.
+fn quantities(wing: &Wing, terms: usize) -> [f64; 8] {
     let p = prepare(wing, Options { terms }).expect("solvable");
     let c = p.coefficients(5f64.to_radians());
+    let stall = p
+        .solve(&wing.condition)
+        .ok()
+        .and_then(|s| s.first_stall)
+        .map_or(f64::NAN, |f| f.cl_wing);
     [
         p.cl_alpha(),
         c.cl,
@@ -35,6 +50,7 @@ fn quantities(wing: &Wing, terms: usize) -> [f64; 7] {
         c.delta.unwrap_or(f64::NAN),
         c.cl_roll,
         c.cdp,
+        stall,
     ]
 }
 
@@ -114,6 +130,27 @@ fn print_convergence_tables() {
     table(
         "Pointed tip (taper 0), AR 6, untwisted",
         &tip,
-        &[CL_ALPHA, CDI, E, DELTA, CDP],
+        &[CL_ALPHA, CDI, E, DELTA, CDP, CL_STALL],
     );
+
+    table(
+        "Elliptic planform from 41 cosine-spaced stations, AR 8, untwisted, cl_max 1.2",
+        &elliptic_stations(41, 1.2),
+        &[CL_ALPHA, CL_STALL],
+    );
+}
+
+/// An elliptic planform of span 2 and AR 8 from `n` right-half stations, cosine-spaced
+/// toward the tip (the tip chord is zero), one section with `cl_max`.
+fn elliptic_stations(n: usize, cl_max: f64) -> Wing {
+    let c0 = 4.0 * 2.0 / (std::f64::consts::PI * 8.0);
+    let stations = (0..n)
+        .map(|k| {
+            let y = (k as f64 / (n - 1) as f64 * std::f64::consts::FRAC_PI_2).sin();
+            station(y, c0 * (1.0 - y * y).max(0.0).sqrt(), 0.0)
+        })
+        .collect();
+    let mut a = thin();
+    a.cl_max = cl_max;
+    wing(stations, a)
 }

@@ -282,3 +282,23 @@ fn a_seen_status_message_clears_when_the_cursor_moves_on() {
     press(&mut app, "u");
     assert_eq!(app.status.text, "undone");
 }
+
+#[test]
+fn the_stall_warning_is_shown_first_with_the_count_of_the_others() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let mut wing = tapered();
+    // Past the stall, with an aileron beyond 20 deg: two warnings, the stall the one shown.
+    wing.condition.alpha_deg = 16.0;
+    wing.controls[0].deflection_deg = 25.0;
+    let app = app_with(wing, Theme::monochrome(UNICODE), dir.path());
+    let s = app.doc().solved.as_ref().expect("solves");
+    assert!(s.warnings.len() >= 2, "{:?}", s.warnings);
+    let rows = lines(&draw(&app, 80, 24));
+    let line = rows
+        .iter()
+        .find(|r| r.starts_with("! "))
+        .unwrap_or_else(|| panic!("{}", rows.join("\n")));
+    assert!(line.starts_with("! cl exceeds cl_max"), "{line}");
+    let more = format!("(+{} more)", s.warnings.len() - 1);
+    assert!(line.trim_end().ends_with(&more), "{line}");
+}

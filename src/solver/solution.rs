@@ -23,6 +23,9 @@ pub struct SpanPoint {
     pub cl_max: f64,
     /// cl / cl_max.
     pub cl_ratio: f64,
+    /// Whether the method judges the stall here: false where cl/cl_max has no meaning that
+    /// converges (next to a pointed tip, where the chord goes to zero).
+    pub stall_judged: bool,
     /// Past the section's stall: cl beyond cl_max, or on the falling side of its lift curve.
     pub past_stall: bool,
     /// Section pitching-moment coefficient about the quarter chord, positive nose up.
@@ -303,13 +306,28 @@ pub fn flight_warnings(flight: &Flight, spanwise: &[SpanPoint], out: &mut Vec<St
             super::compressibility::WARN_MACH
         ));
     }
-    let stalled: Vec<&SpanPoint> = spanwise.iter().filter(|p| p.stalled()).collect();
-    if let (Some(first), Some(last)) = (stalled.first(), stalled.last()) {
-        out.push(format!(
-            "cl exceeds cl_max at {} points (y = {:.3} to {:.3} m): past the stall the results are estimates",
-            stalled.len(),
-            first.y,
-            last.y
-        ));
+    if let Some(stall) = stall_warning(spanwise) {
+        // The most important warning goes first: the workbench shows only the first.
+        out.insert(0, stall);
     }
+}
+
+/// The warning for sections past their cl_max, naming where cl/cl_max peaks.
+#[must_use]
+pub fn stall_warning(spanwise: &[SpanPoint]) -> Option<String> {
+    let stalled: Vec<&SpanPoint> = spanwise.iter().filter(|p| p.stalled()).collect();
+    let (first, last) = (stalled.first()?, stalled.last()?);
+    let peak = stalled
+        .iter()
+        .max_by(|a, b| a.cl_ratio.abs().total_cmp(&b.cl_ratio.abs()))?;
+    // Where it peaks first: on a narrow screen that is the part still in view.
+    Some(format!(
+        "cl exceeds cl_max, most at y = {:.3} m (cl/cl_max {:.2}); {} points from y = {:.3} \
+         to {:.3} m: past the stall the results are estimates",
+        peak.y,
+        peak.cl_ratio.abs(),
+        stalled.len(),
+        first.y,
+        last.y
+    ))
 }

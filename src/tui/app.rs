@@ -6,11 +6,12 @@ use crossterm::event::{KeyCode, KeyEvent, KeyEventKind};
 use ratatui::layout::Size;
 
 use super::cells::{self, Field, Sheet};
+pub use super::doc::same_file;
 use super::doc::{Cursor, Doc};
 use super::editor::{Editor, Purpose};
 use super::keymap::{self, Action, Dir, ModeKind};
 use super::layout_rules;
-use super::picker::{self, Picker};
+use super::picker::{self, Picker, Target};
 use super::rows::{self, NewRow};
 use super::theme::Theme;
 use crate::solver::{Method, Solution};
@@ -408,7 +409,10 @@ impl App {
                 self.after_history(ok, "redone", "nothing to redo");
             }
             Action::Wing(forward) => self.switch_wing(forward),
-            Action::Picker => self.mode = Mode::Picker(picker::build(self)),
+            Action::Picker => {
+                let examples = self.settings.examples.as_deref();
+                self.mode = Mode::Picker(picker::build(&self.docs, self.current, examples));
+            }
             Action::Open => self.prompt(Purpose::Open, ""),
             Action::SaveAs => {
                 let start = self.doc().path.as_ref().map(|p| p.display().to_string());
@@ -427,6 +431,7 @@ impl App {
                 self.clamp_cursor();
             }
             Action::SwitchMethod => self.switch_method(),
+            Action::FindClMax => self.find_cl_max(),
             Action::Help => self.mode = Mode::Help { scroll: 0 },
             Action::Quit => {
                 if self.docs.iter().any(Doc::unsaved) {
@@ -676,6 +681,26 @@ impl App {
         self.say(&msg, false);
     }
 
+    /// The current wing's CL_max, said in the status line.
+    fn find_cl_max(&mut self) {
+        let (text, error) = match self.doc().cl_max() {
+            Some(Ok(m)) if m.cl_max.is_finite() => (
+                format!(
+                    "CL_max {:.4} at alpha {:.2} deg ({}, {})",
+                    m.cl_max,
+                    m.alpha_deg,
+                    m.found_by.as_str(),
+                    self.settings.method.short_name()
+                ),
+                false,
+            ),
+            Some(Ok(m)) => (format!("CL_max: {}", m.found_by.as_str()), false),
+            Some(Err(e)) => (format!("CL_max: {e}"), true),
+            None => ("CL_max: the wing is not solved".to_string(), true),
+        };
+        self.say(&text, error);
+    }
+
     /// Every open wing re-solved by the other method.
     fn switch_method(&mut self) {
         let method = self.settings.method.other();
@@ -717,11 +742,27 @@ impl App {
                 let chosen = p.entries.get(p.selected).map(|e| e.target.clone());
                 self.mode = Mode::Normal;
                 if let Some(target) = chosen {
-                    picker::choose(self, target);
+                    self.choose(target);
                 }
             }
             Action::Cancel => self.mode = Mode::Normal,
             _ => {}
+        }
+    }
+
+    /// Acts on a chosen picker entry.
+    fn choose(&mut self, target: Target) {
+        match target {
+            Target::Open(i) if i < self.docs.len() => {
+                self.current = i;
+                self.clamp_cursor();
+            }
+            Target::Open(_) => {}
+            Target::File(path) => {
+                if let Err(reason) = super::actions::open(self, &path) {
+                    self.say(&reason, true);
+                }
+            }
         }
     }
 
@@ -746,14 +787,5 @@ impl App {
     /// Mutable access to the current wing for file actions.
     pub(super) fn current_doc_mut(&mut self) -> &mut Doc {
         self.doc_mut()
-    }
-}
-
-/// Whether two paths name the same file (by canonical path when both exist).
-#[must_use]
-pub fn same_file(a: &Path, b: &Path) -> bool {
-    match (a.canonicalize(), b.canonicalize()) {
-        (Ok(x), Ok(y)) => x == y,
-        _ => a == b,
     }
 }

@@ -186,4 +186,19 @@ impl Doc {
                 .map_err(|e| crate::text::inert(&e.to_string()));
         }
     }
+
+    /// The wing's CL_max by its prepared method (`None` when it has no prepared system).
+    #[must_use]
+    pub fn cl_max(&self) -> Option<Result<solver::ClMax, solver::SolveError>> {
+        self.prepared.as_ref().map(PreparedWing::cl_max)
+    }
+}
+
+/// Whether two paths name the same file (by canonical path when both exist).
+#[must_use]
+pub fn same_file(a: &Path, b: &Path) -> bool {
+    match (a.canonicalize(), b.canonicalize()) {
+        (Ok(x), Ok(y)) => x == y,
+        _ => a == b,
+    }
 }

@@ -107,6 +107,8 @@ pub enum Action {
     ToggleOffsets,
     /// Switch the solution method (series, vortex).
     SwitchMethod,
+    /// Find the current wing's CL_max (on demand: it solves the wing at many angles).
+    FindClMax,
     /// Prompt for the notebook file.
     Notebook,
     /// Show the help overlay.
@@ -478,6 +480,13 @@ pub const BINDINGS: &[Binding] = &[
         Action::SwitchMethod,
         "switch the method: Glauert series / vortex lifting line (sweep, dihedral)",
         Some("method"),
+    ),
+    bind(
+        &[Normal],
+        &[k('M')],
+        Action::FindClMax,
+        "find the wing's CL_max (steps alpha until the lift peaks)",
+        None,
     ),
     bind(
         &[Normal],

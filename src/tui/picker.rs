@@ -2,8 +2,7 @@
 
 use std::path::{Path, PathBuf};
 
-use super::actions;
-use super::app::{same_file, App};
+use super::doc::{same_file, Doc};
 
 /// Most files listed, so a huge folder does not slow the picker.
 const MAX_FILES: usize = 200;
@@ -35,12 +34,11 @@ pub struct Picker {
     pub selected: usize,
 }
 
-/// Lists the open wings and the `*.toml` files in the examples folder, the open wings'
-/// folders and the working folder.
+/// Lists the open wings `docs` (`current` selected) and the `*.toml` files in the
+/// `examples` folder, the open wings' folders and the working folder.
 #[must_use]
-pub fn build(app: &App) -> Picker {
-    let mut entries: Vec<Entry> = app
-        .docs
+pub fn build(docs: &[Doc], current: usize, examples: Option<&Path>) -> Picker {
+    let mut entries: Vec<Entry> = docs
         .iter()
         .enumerate()
         .map(|(i, d)| Entry {
@@ -55,18 +53,16 @@ pub fn build(app: &App) -> Picker {
             target: Target::Open(i),
         })
         .collect();
-    let mut folders: Vec<PathBuf> = app.settings.examples.iter().cloned().collect();
+    let mut folders: Vec<PathBuf> = examples.into_iter().map(Path::to_path_buf).collect();
     folders.extend(
-        app.docs
-            .iter()
+        docs.iter()
             .filter_map(|d| d.path.as_ref()?.parent().map(Path::to_path_buf)),
     );
     folders.push(PathBuf::from("."));
     let mut files: Vec<PathBuf> = Vec::new();
     for folder in folders {
         for path in wing_files(&folder) {
-            let open = app
-                .docs
+            let open = docs
                 .iter()
                 .any(|d| d.path.as_ref().is_some_and(|p| same_file(p, &path)));
             if !open && !files.iter().any(|f| same_file(f, &path)) && files.len() < MAX_FILES {
@@ -79,7 +75,7 @@ pub fn build(app: &App) -> Picker {
         target: Target::File(p),
     }));
     Picker {
-        selected: app.current.min(entries.len().saturating_sub(1)),
+        selected: current.min(entries.len().saturating_sub(1)),
         entries,
     }
 }
@@ -98,20 +94,4 @@ fn wing_files(folder: &Path) -> Vec<PathBuf> {
         .collect();
     out.sort();
     out
-}
-
-/// Acts on a chosen entry.
-pub fn choose(app: &mut App, target: Target) {
-    match target {
-        Target::Open(i) if i < app.docs.len() => {
-            app.current = i;
-            app.clamp_cursor();
-        }
-        Target::Open(_) => {}
-        Target::File(path) => {
-            if let Err(reason) = actions::open(app, &path) {
-                app.say(&reason, true);
-            }
-        }
-    }
 }

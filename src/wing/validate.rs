@@ -17,6 +17,10 @@ pub const MAX_LENGTH_M: f64 = 1000.0;
 pub const MIN_LENGTH_M: f64 = 0.001;
 /// The largest true airspeed, m/s (about Mach 3; above Mach 0.3 the results are warned).
 pub const MAX_SPEED_M_S: f64 = 1000.0;
+/// The smallest section lift slope, per radian: a slope given per degree (0.11) is caught.
+pub const MIN_LIFT_SLOPE: f64 = 0.5;
+/// The smallest `cl_max`: a section that stalls at once has no lifting-line answer.
+pub const MIN_CL_MAX: f64 = 0.1;
 /// The largest section lift slope, per radian: twice the thin-airfoil 2 pi, so a slope given
 /// per degree times 57.3 twice over, or any other unit slip, is caught.
 pub const MAX_LIFT_SLOPE: f64 = 12.5;
@@ -153,6 +157,23 @@ fn within(
         ));
     }
     ok
+}
+
+/// A positive value (already checked finite and > 0) at least `limit`.
+fn at_least(
+    out: &mut Vec<Problem>,
+    place: &Place,
+    field: &'static str,
+    value: f64,
+    (limit, unit): (f64, &str),
+) {
+    if value > 0.0 && value < limit {
+        out.push(problem(
+            place.clone(),
+            field,
+            format!("must be at least {limit}{unit} (got {})", readable(value)),
+        ));
+    }
 }
 
 /// A value (already checked finite and for its lower bound) at most `limit`.
@@ -347,12 +368,20 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
                     format!("must be > 0 per radian (got {})", readable(a.lift_slope)),
                 ));
             }
+            let per_radian = |limit| (limit, " per radian");
+            at_least(
+                out,
+                &place,
+                "lift_slope",
+                a.lift_slope,
+                per_radian(MIN_LIFT_SLOPE),
+            );
             at_most(
                 out,
                 &place,
                 "lift_slope",
                 a.lift_slope,
-                (MAX_LIFT_SLOPE, " per radian"),
+                per_radian(MAX_LIFT_SLOPE),
             );
         }
         within(out, &place, "alpha_zero_lift", a.alpha_zero_lift_deg, ANGLE);
@@ -376,7 +405,7 @@ fn airfoil_problems(wing: &Wing, out: &mut Vec<Problem>) {
     }
 }
 
-/// cl_max finite, above 0 and at most [`MAX_CL`]; true when it is usable.
+/// cl_max finite, from [`MIN_CL_MAX`] to [`MAX_CL`]; true when it is usable.
 fn cl_max_problems(out: &mut Vec<Problem>, place: &Place, cl_max: f64) -> bool {
     let ok = finite(out, place, "cl_max", cl_max) && cl_max > 0.0;
     if cl_max <= 0.0 {
@@ -386,6 +415,7 @@ fn cl_max_problems(out: &mut Vec<Problem>, place: &Place, cl_max: f64) -> bool {
             format!("must be > 0 (got {})", readable(cl_max)),
         ));
     } else if ok {
+        at_least(out, place, "cl_max", cl_max, (MIN_CL_MAX, ""));
         at_most(out, place, "cl_max", cl_max, (MAX_CL, ""));
     }
     ok

@@ -55,6 +55,8 @@ pub struct Prepared {
     points: Vec<spanwise::LinearPoint>,
     /// Local values at the wing's stations.
     station_points: Vec<spanwise::LinearPoint>,
+    /// Local values at the edges of the judged part next to pointed tips (at most two).
+    edge_points: Vec<spanwise::LinearPoint>,
     first_stall: Option<FirstStall>,
     warnings: Vec<String>,
     /// Cm at zero alpha and per radian (linear: every section's cm is its constant `cm0`).
@@ -102,13 +104,19 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
     warnings.extend(own_warnings(&geometry));
     warnings.extend(linear_table_notes(wing));
     let scales = (geometry.span, geometry.mean_chord);
+    let tips = (
+        sections.at(map.y_mid - map.half_span).chord,
+        sections.at(map.y_mid + map.half_span).chord,
+    );
     let inputs = spanwise::LocalInputs {
         controls: &control_spans,
         roll_rate: roll,
+        stall_region: spanwise::StallRegion::of(map.y_mid, tips, geometry.mean_chord),
     };
     let sums = fourier::collocation_sums(pair.0, pair.1, at.system(wing.symmetric));
     let points = spanwise::linear_points(&at.ys, &at.sections, &sums, scales, inputs);
     let station_points = station_points(wing, &sections, map, pair, scales, inputs);
+    let edge_points = edge_points(wing, &sections, map, pair, scales, inputs);
     let frame = MomentFrame::of(wing, &geometry);
     let cm_at = |alpha: f64| frame.cm(&points.iter().map(|p| p.at(alpha, 1.0)).collect::<Vec<_>>());
     let cm_zero = cm_at(0.0);
@@ -122,6 +130,7 @@ pub fn prepare(wing: &Wing, options: Options) -> Result<Prepared, SolveError> {
         integrals,
         points,
         station_points,
+        edge_points,
         first_stall: None,
         warnings,
     };
@@ -254,6 +263,25 @@ fn station_points(
     inputs: spanwise::LocalInputs,
 ) -> Vec<spanwise::LinearPoint> {
     let ys: Vec<f64> = wing.stations.iter().map(|s| s.y).collect();
+    points_at(
+        &ys,
+        sections.rows(),
+        map,
+        (at_zero, per_alpha),
+        scales,
+        inputs,
+    )
+}
+
+/// Local values at positions `ys` with their sections.
+fn points_at(
+    ys: &[f64],
+    sections: &[Section],
+    map: SpanMap,
+    (at_zero, per_alpha): integrals::ResponsePair,
+    scales: (f64, f64),
+    inputs: spanwise::LocalInputs,
+) -> Vec<spanwise::LinearPoint> {
     let angles: Vec<(f64, f64)> = ys
         .iter()
         .map(|&y| {
@@ -262,7 +290,27 @@ fn station_points(
         })
         .collect();
     let sums = fourier::pair_sums(at_zero, per_alpha, &angles);
-    spanwise::linear_points(&ys, sections.rows(), &sums, scales, inputs)
+    spanwise::linear_points(ys, sections, &sums, scales, inputs)
+}
+
+/// Local values where the judged part of the span ends next to a pointed tip, judged there
+/// (the chord there is the floor itself, up to rounding).
+fn edge_points(
+    wing: &Wing,
+    sections: &Sections,
+    map: SpanMap,
+    pair: integrals::ResponsePair,
+    scales: (f64, f64),
+    inputs: spanwise::LocalInputs,
+) -> Vec<spanwise::LinearPoint> {
+    let chords: Vec<(f64, f64)> = wing.stations.iter().map(|s| (s.y, s.chord)).collect();
+    let ys = inputs.stall_region.edges(&chords, wing.symmetric);
+    let edge_sections: Vec<Section> = ys.iter().map(|&y| sections.at(y)).collect();
+    let mut points = points_at(&ys, &edge_sections, map, pair, scales, inputs);
+    for p in &mut points {
+        p.stall_judged = true;
+    }
+    points
 }
 
 /// Makes the collocation positions of a mirrored wing exactly antisymmetric (the left half
@@ -384,10 +432,12 @@ impl Prepared {
 
     /// How many output points are past their cl_max at `alpha` (radians).
     fn stalled_points(&self, alpha: f64) -> usize {
-        self.points
-            .iter()
-            .filter(|p| (p.cl.0 + alpha * p.cl.1).abs() > p.cl_max)
-            .count()
+        self.judged_points().filter(|p| p.stalled_at(alpha)).count()
+    }
+
+    /// The points where the stall is judged: the output points and the judged part's edges.
+    fn judged_points(&self) -> impl Iterator<Item = &spanwise::LinearPoint> {
+        self.points.iter().chain(&self.edge_points)
     }
 
     /// The warnings of this wing and method that do not depend on the condition.
@@ -427,7 +477,9 @@ impl Prepared {
         let stations = self.station_points.iter().map(|p| p.at(alpha, v)).collect();
         let cl_alpha = self.cl_alpha();
         let mut warnings = self.warnings.clone();
-        solution::flight_warnings(&flight, &spanwise, &mut warnings);
+        let mut judged: Vec<SpanPoint> = self.judged_points().map(|p| p.at(alpha, v)).collect();
+        judged.sort_by(|a, b| a.y.total_cmp(&b.y));
+        solution::flight_warnings(&flight, &judged, &mut warnings);
         Solution {
             coefficients,
             cl_alpha,
@@ -478,15 +530,16 @@ impl Prepared {
 
     /// Linear critical-section estimate: each output point's cl is linear in alpha, so the
     /// alpha at which it reaches cl_max is found exactly; the least of these is the first
-    /// stall. Right-half points win ties, so a symmetric wing reports y >= 0.
+    /// stall. Points next to a pointed tip are not judged (see
+    /// [`spanwise::POINTED_TIP_CHORD_FRACTION`]). Right-half points win ties, so a symmetric
+    /// wing reports y >= 0.
     fn find_first_stall(&self) -> Option<FirstStall> {
         let mut best: Option<(f64, f64)> = None;
-        for p in self.points.iter().rev() {
-            let (zero, slope) = p.cl;
-            if slope <= 1e-9 {
+        // Edges first, then right to left: ties go to an edge, then to the right half.
+        for p in self.edge_points.iter().chain(self.points.iter().rev()) {
+            let Some(alpha) = p.stall_alpha() else {
                 continue;
-            }
-            let alpha = (p.cl_max - zero) / slope;
+            };
             if best.is_none_or(|(a, _)| alpha < a - 1e-12) {
                 best = Some((alpha, p.y));
             }

@@ -157,6 +157,7 @@ impl Prepared {
                     gamma: speed * state.g[i],
                     cl_max,
                     cl_ratio: cl / cl_max,
+                    stall_judged: true,
                     past_stall: past_stall(state.cl[i], cl_max),
                     cm: p.section.moment(state.alpha_eff[i]),
                 }
@@ -202,6 +203,7 @@ impl Prepared {
                     gamma,
                     cl_max,
                     cl_ratio: cl / cl_max,
+                    stall_judged: a.stall_judged && b.stall_judged,
                     past_stall: cl.abs() > cl_max || (a.past_stall && b.past_stall),
                     cm: mix(a.cm, b.cm),
                 }

@@ -63,7 +63,14 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
         });
     }
     let alpha_i = sparkline::sample(&points(s, |p| p.alpha_i_deg), y0, y1, columns);
-    let ratio = sparkline::sample(&points(s, |p| p.cl_ratio), y0, y1, columns);
+    // Only where the solver judges the stall: next to a pointed tip cl/cl_max has no limit.
+    let judged: Vec<(f64, f64)> = s
+        .spanwise
+        .iter()
+        .filter(|p| p.stall_judged)
+        .map(|p| (p.y, p.cl_ratio))
+        .collect();
+    let ratio = sparkline::sample(&judged, y0, y1, columns);
     // Rows: three titles and the axis, then the curves; cl/cl_max gets the extra rows.
     let curves = inner.height - 4;
     let n = u16::try_from(loads.len()).unwrap_or(3) + 2;

@@ -129,33 +129,37 @@ pub fn render(app: &App, area: Rect, buf: &mut Buffer) {
     warnings(s, area, buf, t.warning, t.dim);
 }
 
+/// The first (most important) warning, cut to fit with the count of the others kept in view.
 fn warnings(s: &Solution, area: Rect, buf: &mut Buffer, warn: Style, dim: Style) {
     let y = area.bottom() - 1;
-    match s.warnings.first() {
-        Some(first) => {
-            let more = if s.warnings.len() > 1 {
-                format!(" (+{} more)", s.warnings.len() - 1)
-            } else {
-                String::new()
-            };
-            put(
-                buf,
-                area.x,
-                y,
-                area.width,
-                &format!("! {}{more}", inert(first)),
-                warn,
-            );
-        }
-        None => {
-            put(
-                buf,
-                area.x,
-                y,
-                area.width,
-                "no validity warnings for this case",
-                dim,
-            );
-        }
+    let Some(first) = s.warnings.first() else {
+        put(
+            buf,
+            area.x,
+            y,
+            area.width,
+            "no validity warnings for this case",
+            dim,
+        );
+        return;
+    };
+    let more = match s.warnings.len() - 1 {
+        0 => String::new(),
+        n => format!(" (+{n} more)"),
+    };
+    let line = warning_line(&inert(first), &more, usize::from(area.width));
+    put(buf, area.x, y, area.width, &line, warn);
+}
+
+/// `! warning (+n more)` in at most `width` characters: the warning is cut (marked `..`),
+/// never the count.
+#[must_use]
+pub fn warning_line(warning: &str, more: &str, width: usize) -> String {
+    let whole = format!("! {warning}{more}");
+    if whole.chars().count() <= width {
+        return whole;
     }
+    let room = width.saturating_sub(2 + 2 + more.chars().count());
+    let cut: String = warning.chars().take(room).collect();
+    format!("! {}..{more}", cut.trim_end())
 }
