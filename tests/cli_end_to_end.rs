@@ -458,6 +458,9 @@ fn a_target_cl_past_90_deg_is_refused_and_check_points_at_it() {
     let o = gammaline(&["solve", "wings/trainer.toml", "--cl", "-9"]);
     assert_eq!(o.status.code(), Some(2));
     assert!(stderr(&o).contains("--cl"), "{}", stderr(&o));
+    let o = gammaline(&["solve", "wings/trainer.toml", "--cl", "-1e308"]);
+    assert_eq!(o.status.code(), Some(2));
+    assert!(!stderr(&o).contains("inf"), "{}", stderr(&o));
     let _ = std::fs::remove_dir_all(path.parent().expect("folder"));
 }
 

@@ -44,11 +44,7 @@ pub enum SolveError {
     Unreachable(f64),
     /// A target CL whose angle of attack lies beyond
     /// [`MAX_ALPHA_DEG`](crate::wing::validate::MAX_ALPHA_DEG) either way.
-    #[error(
-        "CL = {} needs alpha = {} deg, beyond -90 to 90 deg",
-        crate::text::significant(*cl, 4),
-        crate::text::significant(*alpha_deg, 4)
-    )]
+    #[error("{}", alpha_out_of_range(*cl, *alpha_deg))]
     AlphaOutOfRange {
         /// The target CL.
         cl: f64,
@@ -76,6 +72,17 @@ pub enum SolveError {
         /// Largest residual at the end.
         residual: f64,
     },
+}
+
+/// The message of [`SolveError::AlphaOutOfRange`]; an angle too large to print is not.
+fn alpha_out_of_range(cl: f64, alpha_deg: f64) -> String {
+    let cl = crate::text::significant(cl, 4);
+    if alpha_deg.is_finite() {
+        let alpha = crate::text::significant(alpha_deg, 4);
+        format!("CL = {cl} needs alpha = {alpha} deg, beyond -90 to 90 deg")
+    } else {
+        format!("CL = {cl} is not reached at any alpha within -90 to 90 deg")
+    }
 }
 
 /// A wing readied for one method: any condition, alpha or sweep is then cheap.
