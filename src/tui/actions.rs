@@ -7,24 +7,20 @@ use super::clipboard;
 use super::doc::Doc;
 use crate::fsio::{self, Stamp, WriteError};
 use crate::report;
+use crate::solver::Method;
 use crate::text::inert;
 use crate::wing::file;
 
-/// Opens a wing file (or switches to it when it is already open).
+/// Reads the wing file at `path` (`~` expanded) for the workbench; `App::update` adds it (or
+/// switches to it when it is already open).
 ///
 /// # Errors
 /// The file's first problem, one line.
-pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
+pub fn open(path: &Path, method: Method) -> Result<Doc, String> {
     if path.as_os_str().is_empty() {
         return Err("type a path to a wing file".into());
     }
-    let path = &expand_home(path);
-    let doc = Doc::read(path, app.settings.method)?;
-    app.add_doc(doc);
-    app.clamp_cursor();
-    let msg = format!("opened {}", path.display());
-    app.say(&msg, false);
-    Ok(())
+    Doc::read(&expand_home(path), method)
 }
 
 /// Reads a wing file; a missing file or a folder is said plainly, a broken file by its

@@ -523,7 +523,7 @@ impl App {
         }
         let outcome = match purpose {
             Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
-            Purpose::Open => super::actions::open(self, Path::new(text.trim())),
+            Purpose::Open => self.open(Path::new(text.trim())),
             Purpose::SaveAs => {
                 let path = PathBuf::from(text.trim());
                 let asked = editor.error.clone();
@@ -759,11 +759,21 @@ impl App {
             }
             Target::Open(_) => {}
             Target::File(path) => {
-                if let Err(reason) = super::actions::open(self, &path) {
+                if let Err(reason) = self.open(&path) {
                     self.say(&reason, true);
                 }
             }
         }
+    }
+
+    /// Opens a wing file as a new document (or switches to it when it is already open).
+    fn open(&mut self, path: &Path) -> Result<(), String> {
+        let doc = super::actions::open(path, self.settings.method)?;
+        let msg = format!("opened {}", doc.path.as_deref().unwrap_or(path).display());
+        self.add_doc(doc);
+        self.clamp_cursor();
+        self.say(&msg, false);
+        Ok(())
     }
 
     /// Adds an open wing (or switches to it if that file is already open) and makes it
