@@ -268,25 +268,18 @@ fn write(app: &mut App, path: &Path, overwrite_read_only: bool) -> Result<(), Wr
     Ok(())
 }
 
-/// Reloads the current wing from its file; the discarded edits stay in the undo history.
-pub fn revert(app: &mut App) {
-    let Some(path) = app.doc().path.clone() else {
-        app.say("this wing has no file to revert to", true);
-        return;
-    };
-    match super::doc::read_stamped(&path) {
-        Ok((wing, stamp)) => {
-            let method = app.settings.method;
-            let doc = app.current_doc_mut();
-            doc.change(wing.clone(), method);
-            doc.saved = Some(wing);
-            doc.disk = Some(stamp);
-            app.clamp_cursor();
-            let msg = format!("reverted to {} (u undoes the revert)", path.display());
-            app.say(&msg, false);
-        }
-        Err(e) => app.say(&e, true),
-    }
+/// The wing and stamp of `doc`'s file as it is now on disk, for `R`; `App::update` puts them
+/// in place (the discarded edits stay in the undo history).
+///
+/// # Errors
+/// When the wing has no file, or its file no longer reads (its first problem, one line).
+pub fn revert(doc: &Doc) -> Result<(PathBuf, crate::wing::Wing, Stamp), String> {
+    let path = doc
+        .path
+        .clone()
+        .ok_or_else(|| "this wing has no file to revert to".to_string())?;
+    let (wing, stamp) = super::doc::read_stamped(&path)?;
+    Ok((path, wing, stamp))
 }
 
 /// Sends the result line to the clipboard (OSC 52, and tmux's buffer inside tmux) and

@@ -424,7 +424,7 @@ impl App {
             }
             Action::Pin => self.pin(),
             Action::Copy => super::actions::copy(self),
-            Action::Revert => super::actions::revert(self),
+            Action::Revert => self.revert(),
             Action::ToggleTarget => self.toggle_target(),
             Action::ToggleOffsets => {
                 self.offsets = !self.offsets;
@@ -774,6 +774,23 @@ impl App {
         self.clamp_cursor();
         self.say(&msg, false);
         Ok(())
+    }
+
+    /// Reloads the current wing from its file; the discarded edits stay in the undo history.
+    fn revert(&mut self) {
+        match super::actions::revert(self.doc()) {
+            Ok((path, wing, stamp)) => {
+                let method = self.settings.method;
+                let doc = self.doc_mut();
+                doc.change(wing.clone(), method);
+                doc.saved = Some(wing);
+                doc.disk = Some(stamp);
+                self.clamp_cursor();
+                let msg = format!("reverted to {} (u undoes the revert)", path.display());
+                self.say(&msg, false);
+            }
+            Err(e) => self.say(&e, true),
+        }
     }
 
     /// Adds an open wing (or switches to it if that file is already open) and makes it
