@@ -2,7 +2,7 @@
 
 use std::path::{Path, PathBuf};
 
-use super::app::App;
+use super::app::{App, Settings};
 use super::clipboard;
 use super::doc::Doc;
 use crate::fsio::{self, Stamp, WriteError};
@@ -282,34 +282,46 @@ pub fn revert(doc: &Doc) -> Result<(PathBuf, crate::wing::Wing, Stamp), String> 
     Ok((path, wing, stamp))
 }
 
-/// Sends the result line to the clipboard (OSC 52, and tmux's buffer inside tmux) and
-/// appends it to the notebook file.
-pub fn copy(app: &mut App) {
-    let line = match &app.doc().solved {
+/// What copying did, for `App::update` to apply: the OSC 52 escape to write to the terminal
+/// and the status message.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Copied {
+    /// The OSC 52 escape carrying the line.
+    pub escape: String,
+    /// What is said in the status line.
+    pub message: String,
+    /// Whether the message reports a failure (the notebook not written).
+    pub failed: bool,
+}
+
+/// Sends `doc`'s result line to tmux's buffer inside tmux and appends it to the notebook
+/// file; the OSC 52 escape comes back for the terminal.
+///
+/// # Errors
+/// When there is no result to copy (the reason, one line).
+pub fn copy(doc: &Doc, settings: &Settings) -> Result<Copied, String> {
+    let line = match &doc.solved {
         Ok(s) => {
-            let d = app.doc();
-            let target = d.wing.condition.target_cl;
-            report::notebook_line(&d.wing, s, target, d.path.as_deref(), d.unsaved())
+            let target = doc.wing.condition.target_cl;
+            report::notebook_line(&doc.wing, s, target, doc.path.as_deref(), doc.unsaved())
         }
-        Err(reason) => {
-            let msg = format!("nothing to copy: {reason}");
-            app.say(&msg, true);
-            return;
-        }
+        Err(reason) => return Err(format!("nothing to copy: {reason}")),
     };
-    app.outbox.push(clipboard::osc52(&line));
     let mut via = "OSC 52".to_string();
-    if app.settings.in_tmux {
+    if settings.in_tmux {
         match clipboard::tmux_load_buffer(&line) {
             Ok(()) => via.push_str(" + tmux buffer"),
             Err(e) => via.push_str(&format!(", tmux failed: {e}")),
         }
     }
-    let notebook = app.settings.notebook.clone();
-    let note = match clipboard::append_notebook(&notebook, &clipboard::timestamp_now(), &line) {
+    let notebook = &settings.notebook;
+    let note = match clipboard::append_notebook(notebook, &clipboard::timestamp_now(), &line) {
         Ok(()) => format!("line appended to {}", notebook.display()),
         Err(e) => format!("notebook {} not written: {e}", notebook.display()),
     };
-    let failed = note.starts_with("notebook");
-    app.say(&format!("sent to clipboard ({via}); {note}"), failed);
+    Ok(Copied {
+        escape: clipboard::osc52(&line),
+        failed: note.starts_with("notebook"),
+        message: format!("sent to clipboard ({via}); {note}"),
+    })
 }

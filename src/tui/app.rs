@@ -423,7 +423,7 @@ impl App {
                 self.prompt(Purpose::Notebook, &start);
             }
             Action::Pin => self.pin(),
-            Action::Copy => super::actions::copy(self),
+            Action::Copy => self.copy(),
             Action::Revert => self.revert(),
             Action::ToggleTarget => self.toggle_target(),
             Action::ToggleOffsets => {
@@ -790,6 +790,17 @@ impl App {
                 self.say(&msg, false);
             }
             Err(e) => self.say(&e, true),
+        }
+    }
+
+    /// Sends the result line to the clipboard and the notebook, and says how it went.
+    fn copy(&mut self) {
+        match super::actions::copy(self.doc(), &self.settings) {
+            Ok(copied) => {
+                self.outbox.push(copied.escape);
+                self.say(&copied.message, copied.failed);
+            }
+            Err(reason) => self.say(&reason, true),
         }
     }
 
