@@ -10,9 +10,10 @@ use crate::design::loads::{LoadCase, MassDistribution, SparLoads};
 use crate::design::roll::RollAuthority;
 use crate::design::study::{Row, Variant, Vary};
 use crate::design::twist::TwistDesign;
+use crate::design::washout::{Goal, Outcome, WashoutDesign};
 use crate::report::{csv_row, opt, unsigned_zeros};
 use crate::solver::Solution;
-use crate::text::{fixed, inert};
+use crate::text::{fixed, inert, signed};
 use crate::wing::{fingerprint, Wing};
 
 /// Everything `design --loading` prints.
@@ -458,6 +459,103 @@ pub fn study_csv(variants: &[Variant]) -> String {
             csv_row(&[Some(v.value)]),
             csv_row(&values)
         );
+    }
+    out
+}
+
+/// Everything `design --washout` prints.
+pub struct WashoutReport<'a> {
+    /// The washout found.
+    pub design: &'a WashoutDesign,
+    /// What it was for.
+    pub goal: Goal,
+    /// Design lift coefficient.
+    pub cl: f64,
+    /// Where the wing was written.
+    pub output: &'a Path,
+}
+
+/// (label, before, after, decimals) of a washout report's comparison.
+fn washout_rows(r: &WashoutReport) -> [(&'static str, Option<f64>, Option<f64>, usize); 4] {
+    let (b, a) = (&r.design.before, &r.design.after);
+    [
+        ("CDi", Some(b.cdi), Some(a.cdi), 6),
+        ("e", b.e, a.e, 4),
+        ("stall_margin", b.stall_margin, a.stall_margin, 4),
+        ("first_stall_y_m", b.first_stall_y, a.first_stall_y, 3),
+    ]
+}
+
+/// The readable report of a washout search: the washout and the wing before and after.
+#[must_use]
+pub fn washout_table(r: &WashoutReport) -> String {
+    let d = r.design;
+    let mut out = String::new();
+    let _ = writeln!(
+        out,
+        "wing        {}  [{}] -> {}",
+        inert(&d.wing.name),
+        fingerprint(&d.wing),
+        inert(&r.output.display().to_string())
+    );
+    let _ = writeln!(
+        out,
+        "washout     {} at CL {}: {} deg (twist added: root 0, tips {} deg)",
+        r.goal.label(),
+        fixed(r.cl, 4),
+        fixed(d.washout_deg, 3),
+        signed(-d.washout_deg, 3)
+    );
+    let _ = writeln!(out, "\n{:<16} {:>10} {:>10}", "", "before", "after");
+    for (label, before, after, decimals) in washout_rows(r) {
+        let _ = writeln!(
+            out,
+            "{label:<16} {:>10} {:>10}",
+            opt(before, decimals),
+            opt(after, decimals)
+        );
+    }
+    out.push_str(
+        "\nstall_margin: at the first-stall CL, the root's cl/cl_max less the highest on the \
+         outer half of either semispan (positive: the root stalls first)\n",
+    );
+    out
+}
+
+/// The JSON object of `design --washout --format json`.
+#[must_use]
+pub fn washout_json(r: &WashoutReport) -> Value {
+    let side = |o: &Outcome| {
+        json!({
+            "CDi": o.cdi,
+            "e": o.e,
+            "stall_margin": o.stall_margin,
+            "first_stall_y_m": o.first_stall_y,
+        })
+    };
+    let mut out = json!({
+        "wing": r.design.wing.name,
+        "fingerprint": fingerprint(&r.design.wing),
+        "output": r.output.display().to_string(),
+        "goal": r.goal.label(),
+        "CL": r.cl,
+        "washout_deg": r.design.washout_deg,
+        "before": side(&r.design.before),
+        "after": side(&r.design.after),
+    });
+    unsigned_zeros(&mut out);
+    out
+}
+
+/// A washout search as CSV: one row per compared quantity.
+#[must_use]
+pub fn washout_csv(r: &WashoutReport) -> String {
+    let mut out = format!(
+        "quantity,before,after\nwashout_deg,0,{}\n",
+        csv_row(&[Some(r.design.washout_deg)])
+    );
+    for (label, before, after, _) in washout_rows(r) {
+        let _ = writeln!(out, "{label},{}", csv_row(&[before, after]));
     }
     out
 }

@@ -245,3 +245,32 @@ fn study_prints_every_variant_in_every_format() {
     let err = one_line_error(&o);
     assert!(err.contains("did you mean `aileron`"), "{err}");
 }
+
+#[test]
+fn design_washout_prints_before_and_after() {
+    let dir = tempfile::tempdir().expect("temp dir");
+    let out = dir.path().join("washed.toml");
+    let out = out.to_str().unwrap();
+    let base = ["design", "wings/trainer.toml", "--cl", "0.5", "-o", out];
+    let j = json(&gammaline(
+        &[
+            &base[..],
+            &["--washout", "root-first:0.1", "--format", "json"],
+        ]
+        .concat(),
+    ));
+    assert!(j["washout_deg"].as_f64().unwrap() > 0.0, "{j}");
+    assert!(
+        j["after"]["stall_margin"].as_f64().unwrap() >= 0.1 - 1e-9,
+        "{j}"
+    );
+    for key in ["CDi", "e", "stall_margin"] {
+        assert!(j["before"][key].is_f64(), "{key}");
+    }
+    let o = gammaline(&["check", out]);
+    assert!(o.status.success(), "the written wing reads back");
+    let table = gammaline(&[&base[..], &["--washout", "min-drag"]].concat());
+    assert!(String::from_utf8_lossy(&table.stdout).contains("before"));
+    let o = gammaline(&[&base[..], &["--washout", "least"]].concat());
+    assert!(!o.status.success());
+}

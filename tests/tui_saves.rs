@@ -164,6 +164,12 @@ fn a_failed_session_write_makes_the_quit_question_say_the_edits_are_only_in_memo
         text.contains("s saves") && text.contains("S saves as"),
         "names what to do: {text}"
     );
+    // Quitting anyway leaves a line in the shell saying the edits are gone.
+    let note = gammaline::tui::lost_work(&app).expect("a note");
+    assert!(
+        note.contains("not kept") && note.contains("session not saved"),
+        "{note}"
+    );
     // When the session can be written again, the question says so again.
     press(&mut app, "n");
     fs::remove_file(dir.path().join("session")).expect("clear the way");
@@ -171,6 +177,7 @@ fn a_failed_session_write_makes_the_quit_question_say_the_edits_are_only_in_memo
     let (question, advice) = app.quit_question();
     assert!(question.contains("session keeps them"), "{question}");
     assert!(advice.is_none());
+    assert!(gammaline::tui::lost_work(&app).is_none());
 }
 
 #[test]

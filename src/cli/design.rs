@@ -5,7 +5,7 @@ use std::path::{Path, PathBuf};
 use super::commands::{emit, load, method, shown, warn};
 use super::{ConditionArgs, Format};
 use crate::design::roll::{self, RollAuthority};
-use crate::design::{self, twist, DesignError, SolveFn};
+use crate::design::{self, twist, washout, DesignError, SolveFn};
 use crate::report_design as render;
 use crate::solver::{self, Solution, SolveError};
 use crate::text::inert;
@@ -20,8 +20,13 @@ pub(super) struct DesignArgs {
     #[arg(long, value_name = "CL", allow_negative_numbers = true)]
     cl: f64,
     /// Spanwise loading to design the twist for: elliptic, bell or blend:K (K in [0, 1]).
-    #[arg(long, value_name = "LOADING", value_parser = twist::Loading::parse)]
-    loading: twist::Loading,
+    #[arg(long, value_name = "LOADING", value_parser = twist::Loading::parse,
+          required_unless_present = "washout", conflicts_with = "washout")]
+    loading: Option<twist::Loading>,
+    /// Find a linear washout instead: min-drag (least CDi at --cl) or root-first:MARGIN
+    /// (least washout with every station's cl/cl_max MARGIN below the root's at first stall).
+    #[arg(long, value_name = "GOAL", value_parser = washout::Goal::parse)]
+    washout: Option<washout::Goal>,
     /// The designed wing file to write (never the input unless named here).
     #[arg(short = 'o', long = "output", value_name = "OUT")]
     output: PathBuf,
@@ -90,8 +95,50 @@ pub(super) fn run(args: &DesignArgs) -> Result<(), String> {
     let wing = wing_at(&args.file, &args.condition)?;
     let solve = solver_of(&args.condition);
     let solve: SolveFn = &solve;
+    match (args.loading, args.washout) {
+        (Some(loading), _) => design_loading(args, &wing, loading, solve),
+        (None, Some(goal)) => design_washout(args, &wing, goal, solve),
+        (None, None) => Err("design: give --loading or --washout".into()),
+    }
+}
+
+fn design_washout(
+    args: &DesignArgs,
+    wing: &Wing,
+    goal: washout::Goal,
+    solve: SolveFn,
+) -> Result<(), String> {
+    let found = washout::search(wing, args.cl, goal, solve).map_err(|e| failed(&args.file, &e))?;
+    let note = format!(
+        "Washout {} deg added for {} at CL {} from {}.",
+        found.washout_deg,
+        goal.label(),
+        args.cl,
+        args.file.display()
+    );
+    write_wing(&args.file, &args.output, &found.wing, &note)?;
+    let report = render::WashoutReport {
+        design: &found,
+        goal,
+        cl: args.cl,
+        output: &args.output,
+    };
+    let text = match args.format {
+        Format::Line | Format::Table => render::washout_table(&report),
+        Format::Json => format!("{}\n", render::washout_json(&report)),
+        Format::Csv => render::washout_csv(&report),
+    };
+    emit(&text, args.format)
+}
+
+fn design_loading(
+    args: &DesignArgs,
+    wing: &Wing,
+    loading: twist::Loading,
+    solve: SolveFn,
+) -> Result<(), String> {
     let designed =
-        twist::design_twist(&wing, args.cl, args.loading).map_err(|e| failed(&args.file, &e))?;
+        twist::design_twist(wing, args.cl, loading).map_err(|e| failed(&args.file, &e))?;
     let neutral = solve(
         &twist::controls_neutral(&designed.wing),
         &design::at_cl(&designed.wing, args.cl),
@@ -99,11 +146,11 @@ pub(super) fn run(args: &DesignArgs) -> Result<(), String> {
     .map_err(|e| failed(&args.file, &e.into()))?;
     let as_written = solve(&designed.wing, &design::at_cl(&designed.wing, args.cl))
         .map_err(|e| failed(&args.file, &e.into()))?;
-    let delta0 = twist::untwisted_delta(&wing, solve).map_err(|e| failed(&args.file, &e))?;
+    let delta0 = twist::untwisted_delta(wing, solve).map_err(|e| failed(&args.file, &e))?;
     warn(&args.file, &neutral.warnings);
     let note = format!(
         "Twist designed for the {} loading at CL {} from {}.",
-        args.loading.label(),
+        loading.label(),
         args.cl,
         args.file.display()
     );

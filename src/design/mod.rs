@@ -9,6 +9,7 @@ pub mod loads;
 pub mod roll;
 pub mod study;
 pub mod twist;
+pub mod washout;
 
 use crate::solver::{Solution, SolveError};
 use crate::wing::{Condition, Wing};

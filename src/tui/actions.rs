@@ -2,29 +2,25 @@
 
 use std::path::{Path, PathBuf};
 
-use super::app::App;
+use super::app::{App, Settings};
 use super::clipboard;
 use super::doc::Doc;
 use crate::fsio::{self, Stamp, WriteError};
 use crate::report;
+use crate::solver::Method;
 use crate::text::inert;
 use crate::wing::file;
 
-/// Opens a wing file (or switches to it when it is already open).
+/// Reads the wing file at `path` (`~` expanded) for the workbench; `App::update` adds it (or
+/// switches to it when it is already open).
 ///
 /// # Errors
 /// The file's first problem, one line.
-pub fn open(app: &mut App, path: &Path) -> Result<(), String> {
+pub fn open(path: &Path, method: Method) -> Result<Doc, String> {
     if path.as_os_str().is_empty() {
         return Err("type a path to a wing file".into());
     }
-    let path = &expand_home(path);
-    let doc = Doc::read(path, app.settings.method)?;
-    app.add_doc(doc);
-    app.clamp_cursor();
-    let msg = format!("opened {}", path.display());
-    app.say(&msg, false);
-    Ok(())
+    Doc::read(&expand_home(path), method)
 }
 
 /// Reads a wing file; a missing file or a folder is said plainly, a broken file by its
@@ -272,55 +268,60 @@ fn write(app: &mut App, path: &Path, overwrite_read_only: bool) -> Result<(), Wr
     Ok(())
 }
 
-/// Reloads the current wing from its file; the discarded edits stay in the undo history.
-pub fn revert(app: &mut App) {
-    let Some(path) = app.doc().path.clone() else {
-        app.say("this wing has no file to revert to", true);
-        return;
-    };
-    match super::doc::read_stamped(&path) {
-        Ok((wing, stamp)) => {
-            let method = app.settings.method;
-            let doc = app.current_doc_mut();
-            doc.change(wing.clone(), method);
-            doc.saved = Some(wing);
-            doc.disk = Some(stamp);
-            app.clamp_cursor();
-            let msg = format!("reverted to {} (u undoes the revert)", path.display());
-            app.say(&msg, false);
-        }
-        Err(e) => app.say(&e, true),
-    }
+/// The wing and stamp of `doc`'s file as it is now on disk, for `R`; `App::update` puts them
+/// in place (the discarded edits stay in the undo history).
+///
+/// # Errors
+/// When the wing has no file, or its file no longer reads (its first problem, one line).
+pub fn revert(doc: &Doc) -> Result<(PathBuf, crate::wing::Wing, Stamp), String> {
+    let path = doc
+        .path
+        .clone()
+        .ok_or_else(|| "this wing has no file to revert to".to_string())?;
+    let (wing, stamp) = super::doc::read_stamped(&path)?;
+    Ok((path, wing, stamp))
 }
 
-/// Sends the result line to the clipboard (OSC 52, and tmux's buffer inside tmux) and
-/// appends it to the notebook file.
-pub fn copy(app: &mut App) {
-    let line = match &app.doc().solved {
+/// What copying did, for `App::update` to apply: the OSC 52 escape to write to the terminal
+/// and the status message.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct Copied {
+    /// The OSC 52 escape carrying the line.
+    pub escape: String,
+    /// What is said in the status line.
+    pub message: String,
+    /// Whether the message reports a failure (the notebook not written).
+    pub failed: bool,
+}
+
+/// Sends `doc`'s result line to tmux's buffer inside tmux and appends it to the notebook
+/// file; the OSC 52 escape comes back for the terminal.
+///
+/// # Errors
+/// When there is no result to copy (the reason, one line).
+pub fn copy(doc: &Doc, settings: &Settings) -> Result<Copied, String> {
+    let line = match &doc.solved {
         Ok(s) => {
-            let d = app.doc();
-            let target = d.wing.condition.target_cl;
-            report::notebook_line(&d.wing, s, target, d.path.as_deref(), d.unsaved())
+            let target = doc.wing.condition.target_cl;
+            report::notebook_line(&doc.wing, s, target, doc.path.as_deref(), doc.unsaved())
         }
-        Err(reason) => {
-            let msg = format!("nothing to copy: {reason}");
-            app.say(&msg, true);
-            return;
-        }
+        Err(reason) => return Err(format!("nothing to copy: {reason}")),
     };
-    app.outbox.push(clipboard::osc52(&line));
     let mut via = "OSC 52".to_string();
-    if app.settings.in_tmux {
+    if settings.in_tmux {
         match clipboard::tmux_load_buffer(&line) {
             Ok(()) => via.push_str(" + tmux buffer"),
             Err(e) => via.push_str(&format!(", tmux failed: {e}")),
         }
     }
-    let notebook = app.settings.notebook.clone();
-    let note = match clipboard::append_notebook(&notebook, &clipboard::timestamp_now(), &line) {
+    let notebook = &settings.notebook;
+    let note = match clipboard::append_notebook(notebook, &clipboard::timestamp_now(), &line) {
         Ok(()) => format!("line appended to {}", notebook.display()),
         Err(e) => format!("notebook {} not written: {e}", notebook.display()),
     };
-    let failed = note.starts_with("notebook");
-    app.say(&format!("sent to clipboard ({via}); {note}"), failed);
+    Ok(Copied {
+        escape: clipboard::osc52(&line),
+        failed: note.starts_with("notebook"),
+        message: format!("sent to clipboard ({via}); {note}"),
+    })
 }

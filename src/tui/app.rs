@@ -423,8 +423,8 @@ impl App {
                 self.prompt(Purpose::Notebook, &start);
             }
             Action::Pin => self.pin(),
-            Action::Copy => super::actions::copy(self),
-            Action::Revert => super::actions::revert(self),
+            Action::Copy => self.copy(),
+            Action::Revert => self.revert(),
             Action::ToggleTarget => self.toggle_target(),
             Action::ToggleOffsets => {
                 self.offsets = !self.offsets;
@@ -523,7 +523,7 @@ impl App {
         }
         let outcome = match purpose {
             Purpose::Cell { row, field, .. } => self.commit_cell(row, field, &text),
-            Purpose::Open => super::actions::open(self, Path::new(text.trim())),
+            Purpose::Open => self.open(Path::new(text.trim())),
             Purpose::SaveAs => {
                 let path = PathBuf::from(text.trim());
                 let asked = editor.error.clone();
@@ -759,10 +759,48 @@ impl App {
             }
             Target::Open(_) => {}
             Target::File(path) => {
-                if let Err(reason) = super::actions::open(self, &path) {
+                if let Err(reason) = self.open(&path) {
                     self.say(&reason, true);
                 }
             }
+        }
+    }
+
+    /// Opens a wing file as a new document (or switches to it when it is already open).
+    fn open(&mut self, path: &Path) -> Result<(), String> {
+        let doc = super::actions::open(path, self.settings.method)?;
+        let msg = format!("opened {}", doc.path.as_deref().unwrap_or(path).display());
+        self.add_doc(doc);
+        self.clamp_cursor();
+        self.say(&msg, false);
+        Ok(())
+    }
+
+    /// Reloads the current wing from its file; the discarded edits stay in the undo history.
+    fn revert(&mut self) {
+        match super::actions::revert(self.doc()) {
+            Ok((path, wing, stamp)) => {
+                let method = self.settings.method;
+                let doc = self.doc_mut();
+                doc.change(wing.clone(), method);
+                doc.saved = Some(wing);
+                doc.disk = Some(stamp);
+                self.clamp_cursor();
+                let msg = format!("reverted to {} (u undoes the revert)", path.display());
+                self.say(&msg, false);
+            }
+            Err(e) => self.say(&e, true),
+        }
+    }
+
+    /// Sends the result line to the clipboard and the notebook, and says how it went.
+    fn copy(&mut self) {
+        match super::actions::copy(self.doc(), &self.settings) {
+            Ok(copied) => {
+                self.outbox.push(copied.escape);
+                self.say(&copied.message, copied.failed);
+            }
+            Err(reason) => self.say(&reason, true),
         }
     }
 

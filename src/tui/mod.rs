@@ -66,7 +66,12 @@ pub fn run(options: LaunchOptions) -> ExitCode {
         event_loop(&mut guard, &mut app)
     }));
     match outcome {
-        Ok(Ok(())) => ExitCode::SUCCESS,
+        Ok(Ok(())) => {
+            if let Some(note) = lost_work(&app) {
+                eprintln!("gammaline: {note}");
+            }
+            ExitCode::SUCCESS
+        }
         Ok(Err(e)) => {
             eprintln!("gammaline: the workbench stopped: {e}");
             ExitCode::FAILURE
@@ -78,6 +83,19 @@ pub fn run(options: LaunchOptions) -> ExitCode {
             ExitCode::FAILURE
         }
     }
+}
+
+/// What to say on leaving when unsaved wings were kept nowhere (the user chose to quit
+/// anyway): the shell then still shows that they are gone, and why.
+#[must_use]
+pub fn lost_work(app: &App) -> Option<String> {
+    let n = app.docs.iter().filter(|d| d.unsaved()).count();
+    let why = app.session_state.why_not()?;
+    (n > 0).then(|| {
+        crate::text::inert(&format!(
+            "{n} wing(s) with unsaved edits were not kept ({why})"
+        ))
+    })
 }
 
 /// Builds the workbench state for these options (no terminal involved; tests use it).
