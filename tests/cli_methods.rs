@@ -158,3 +158,27 @@ fn a_resolution_flag_of_the_other_method_is_refused_in_one_line() {
     assert_eq!(o.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&o.stderr).contains("panels: must be between"));
 }
+
+/// A section driven outside its airfoil table rests on no data: the vortex method says where.
+#[test]
+fn a_section_beyond_its_airfoil_table_is_named_in_a_warning() {
+    let run = |alpha: &str| {
+        let o = gammaline(&[
+            "solve",
+            "wings/ridge-courier.toml",
+            "--method",
+            "vortex",
+            "--alpha",
+            alpha,
+        ]);
+        assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));
+        String::from_utf8_lossy(&o.stderr).into_owned()
+    };
+    let inside = run("4");
+    assert!(!inside.contains("beyond its airfoil table"), "{inside}");
+    let below = run("-14");
+    assert!(
+        below.contains("beyond its airfoil table (-8.0 to 18.0 deg)"),
+        "{below}"
+    );
+}

@@ -98,6 +98,18 @@ impl Curve {
             Self::Table(t) => t.moment(alpha),
         }
     }
+
+    /// The angles of attack (radians) the curve's data cover; `None` for a straight line.
+    #[must_use]
+    pub fn data_range(&self) -> Option<(f64, f64)> {
+        match self {
+            Self::Linear(_) => None,
+            Self::Table(t) => {
+                let r = t.alpha_range_deg();
+                Some((r.start.to_radians(), r.end.to_radians()))
+            }
+        }
+    }
 }
 
 fn mix(a: f64, b: f64, t: f64) -> f64 {
@@ -126,6 +138,17 @@ impl TableBlend {
                 t,
             })
         })
+    }
+
+    /// The angles of attack (radians) that every weighted table of the blend covers; `None`
+    /// when no weighted side is a table.
+    #[must_use]
+    pub fn data_range(&self) -> Option<(f64, f64)> {
+        [(&self.first, self.t < 1.0), (&self.second, self.t > 0.0)]
+            .into_iter()
+            .filter(|&(_, weighted)| weighted)
+            .filter_map(|(curve, _)| curve.data_range())
+            .reduce(|a, b| (a.0.max(b.0), a.1.min(b.1)))
     }
 
     /// `(1 - t) f(first) + t f(second)`, skipping a side that has no weight.

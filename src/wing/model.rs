@@ -175,6 +175,13 @@ pub(crate) fn bracket<T>(items: &[T], y_of: impl Fn(&T) -> f64, y: f64) -> (usiz
 }
 
 impl Section {
+    /// The section angles of attack (radians) its airfoil tables cover; `None` for linear
+    /// sections, whose straight lines have no ends.
+    #[must_use]
+    pub fn data_range(&self) -> Option<(f64, f64)> {
+        self.curves.as_ref().and_then(|b| b.data_range())
+    }
+
     /// Section lift coefficient and its slope dcl/dalpha (per radian) at effective angle of
     /// attack `alpha_eff` (radians, of the section's chord line, control shifts included):
     /// the linear section cl = a0 (alpha_eff - alpha_L0) (thin-airfoil theory; Anderson,

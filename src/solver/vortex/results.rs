@@ -139,6 +139,28 @@ impl Prepared {
         })
     }
 
+    /// Where a section runs outside the angles its airfoil table gives (the table's end values
+    /// are held there, so the result rests on no data): the first such point, as a warning.
+    fn beyond_table_warning(&self, state: &State) -> Option<String> {
+        self.panels
+            .points
+            .iter()
+            .zip(&state.alpha_eff)
+            .find_map(|(p, &alpha)| {
+                let (low, high) = p.section.data_range()?;
+                (alpha < low || alpha > high).then(|| {
+                    format!(
+                        "section angle of attack {:.1} deg at y = {:.3} m is beyond its airfoil \
+                         table ({:.1} to {:.1} deg): the table's end values are held there",
+                        alpha.to_degrees(),
+                        p.at[1],
+                        low.to_degrees(),
+                        high.to_degrees()
+                    )
+                })
+            })
+    }
+
     fn span_points(&self, state: &State, speed: f64, alpha_i: &[f64]) -> Vec<SpanPoint> {
         let mean_chord = self.geometry.mean_chord;
         self.panels
@@ -241,6 +263,7 @@ impl Prepared {
             / g.area;
         let mut warnings = self.warnings.clone();
         solution::flight_warnings(&flight, &spanwise, &mut warnings);
+        warnings.extend(self.beyond_table_warning(state));
         Solution {
             coefficients,
             cl_alpha,
