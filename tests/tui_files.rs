@@ -184,3 +184,45 @@ fn saving_a_table_wing_from_the_workbench_keeps_its_table_files_and_arrays() {
     assert_eq!(changed, ["chord = 0.35"], "{saved}");
     assert!(saved.contains("table = \"ridge-courier-root.csv\""));
 }
+
+#[test]
+fn a_table_wing_saved_into_another_folder_still_finds_its_csv_tables() {
+    use gammaline::solver::Method;
+    use gammaline::tui::app::App;
+    use gammaline::tui::doc::Doc;
+    use gammaline::tui::theme::{Theme, UNICODE};
+    let dir = tempfile::tempdir().expect("temp dir");
+    let (here, elsewhere, below) = (
+        dir.path().join("here"),
+        dir.path().join("elsewhere"),
+        dir.path().join("here/variants"),
+    );
+    for folder in [&here, &elsewhere, &below] {
+        std::fs::create_dir_all(folder).expect("folder");
+    }
+    let wings = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
+    for name in [
+        "ridge-courier.toml",
+        "ridge-courier-root.csv",
+        "ridge-courier-outboard.csv",
+    ] {
+        std::fs::copy(wings.join(name), here.join(name)).expect("copy");
+    }
+    let path = here.join("ridge-courier.toml");
+    let wing = gammaline::wing::file::read(&path).expect("loads");
+    let doc = Doc::new(wing, Some(path.clone()), Method::default());
+    let settings = tui_support::settings(dir.path());
+    let mut app = App::new(vec![doc], Theme::monochrome(UNICODE), settings);
+    for target in [elsewhere.join("copy.toml"), below.join("copy.toml")] {
+        prompt(&mut app, "S", &target.display().to_string());
+        assert!(matches!(app.mode, Mode::Normal), "{}", app.status.text);
+        let saved = std::fs::read_to_string(&target).expect("saved");
+        assert!(
+            gammaline::wing::file::read(&target).is_ok(),
+            "the copy reads with its tables: {saved}"
+        );
+        assert!(saved.contains("# "), "comments kept: {saved}");
+    }
+    // The original and its tables are untouched.
+    assert!(gammaline::wing::file::read(&path).is_ok());
+}

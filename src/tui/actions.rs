@@ -62,9 +62,10 @@ pub fn plan_save(app: &App, overwrite_changed: bool) -> SavePlan {
     if is_example(app, &path) {
         return SavePlan::AskSaveAs {
             start: copy_name(&path),
+            // The file name alone, so the advice fits an 80-column status line.
             reason: Some(format!(
-                "{} is a bundled example and is never overwritten: save your wing as a new file",
-                path.display()
+                "{} is a bundled example, never overwritten: save as a new file",
+                path.file_name().unwrap_or(path.as_os_str()).display()
             )),
         };
     }
@@ -248,6 +249,18 @@ fn write(app: &mut App, path: &Path, overwrite_read_only: bool) -> Result<(), Wr
     // Values a step of arithmetic left a hair off (0.5800000000000001) are saved as typed.
     let wing = file::tidy_numbers(&app.doc().wing);
     let text = saved_text(app, &wing);
+    // A wing saved into another folder must still find the CSV tables it names.
+    let folder = |p: &Path| {
+        p.parent()
+            .filter(|f| !f.as_os_str().is_empty())
+            .map_or_else(|| PathBuf::from("."), Path::to_path_buf)
+    };
+    let text = match app.doc().path.as_deref() {
+        Some(old) if folder(old) != folder(path) => {
+            file::rebase_tables(&text, &folder(old), &folder(path))
+        }
+        _ => text,
+    };
     let target = fsio::replace(path, text.as_bytes(), overwrite_read_only)?;
     let doc = app.current_doc_mut();
     if doc.wing != wing {

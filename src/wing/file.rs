@@ -17,7 +17,7 @@ mod edit;
 mod locate;
 
 use airfoil::{RawAirfoil, Reader, TableFiles};
-pub use edit::{edit_toml, tidy, tidy_numbers};
+pub use edit::{edit_toml, rebase_tables, tidy, tidy_numbers};
 use locate::Locator;
 
 /// A wing file that cannot be used, located to the character.

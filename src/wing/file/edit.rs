@@ -13,6 +13,48 @@ use super::{parse_with, to_toml};
 use crate::wing::table::{SectionTable, TableSource};
 use crate::wing::{Airfoil, Condition, Control, Station, Wing};
 
+/// `text` (a wing file from folder `from`) with every airfoil's `table = "FILE.csv"` rewritten
+/// for a file saved in folder `to`, so a wing saved elsewhere still finds its CSV tables:
+/// relative to `to` when the CSV lies below it, else as an absolute path. Comments are kept.
+#[must_use]
+pub fn rebase_tables(text: &str, from: &Path, to: &Path) -> String {
+    let Ok(mut doc) = text.parse::<DocumentMut>() else {
+        return text.to_owned();
+    };
+    let to = to.canonicalize().unwrap_or_else(|_| to.to_path_buf());
+    let Some(airfoils) = doc.get_mut("airfoil").and_then(Item::as_table_like_mut) else {
+        return text.to_owned();
+    };
+    let mut changed = false;
+    for (_, airfoil) in airfoils.iter_mut() {
+        let Some(value) = airfoil
+            .as_table_like_mut()
+            .and_then(|t| t.get_mut("table"))
+            .and_then(Item::as_value_mut)
+        else {
+            continue;
+        };
+        let Some(named) = value.as_str().map(Path::new) else {
+            continue;
+        };
+        if named.is_absolute() {
+            continue;
+        }
+        let csv = from.join(named);
+        let csv = csv.canonicalize().unwrap_or(csv);
+        let new = csv.strip_prefix(&to).unwrap_or(&csv).display().to_string();
+        let decor = value.decor().clone();
+        *value = Value::from(new);
+        *value.decor_mut() = decor;
+        changed = true;
+    }
+    if changed {
+        doc.to_string()
+    } else {
+        text.to_owned()
+    }
+}
+
 /// `original` (a wing file's text) changed to describe `wing`: values that differ are
 /// replaced in place (keeping a trailing comment and its column), stations and controls added
 /// or removed, airfoils added, removed or renamed, the condition switched between alpha and a
