@@ -4,11 +4,12 @@
 use std::f64::consts::{PI, TAU};
 
 use super::wings::{
-    aileron_wing, bell_loaded, elliptic_at_collocation, rectangular, smooth_tapered, tapered,
+    aileron_wing, bell_loaded, elliptic_at_collocation, rectangular, smooth_tapered, swept_ar6,
+    tapered,
 };
 use super::{Case, Reading, Tolerance};
 use crate::atmosphere;
-use crate::solver::{self, controls, solution, Method, Solution, DEFAULT_TERMS};
+use crate::solver::{self, controls, solution, Method, Solution, DEFAULT_PANELS, DEFAULT_TERMS};
 use crate::wing::{Condition, Control, ControlKind, Wing};
 
 use Tolerance::{Absolute, Relative};
@@ -460,21 +461,36 @@ struct Study {
     finer: Method,
     /// Four times as fine, for a part-span control (a step in alpha_L0).
     finest: Method,
+    /// The smooth wing the method is studied on, and its label.
+    wing: (fn() -> Wing, &'static str),
     /// Largest relative change allowed on a smooth wing.
     smooth: f64,
     /// Largest relative change allowed for a part-span control's rolling moment.
     control: f64,
 }
 
-/// Every method's study: 1e-4 on smooth wings; 1% for a part-span aileron, which a sine
-/// series resolves slowly (docs/theory.md).
-const STUDIES: [Study; 1] = [Study {
-    default: Method::series(DEFAULT_TERMS),
-    finer: Method::series(2 * DEFAULT_TERMS),
-    finest: Method::series(4 * DEFAULT_TERMS),
-    smooth: 1e-4,
-    control: 0.01,
-}];
+/// Every method's study: the series 1e-4 on smooth wings and 1% for a part-span aileron,
+/// which a sine series resolves slowly; the vortex method, whose error falls as 1/N^2 (docs/
+/// theory.md, section 11), 1e-3 on a swept wing (whose grid is not fixed by its stations)
+/// and 1% with the aileron.
+const STUDIES: [Study; 2] = [
+    Study {
+        default: Method::series(DEFAULT_TERMS),
+        finer: Method::series(2 * DEFAULT_TERMS),
+        finest: Method::series(4 * DEFAULT_TERMS),
+        wing: (smooth_tapered, "smooth taper"),
+        smooth: 1e-4,
+        control: 0.01,
+    },
+    Study {
+        default: Method::vortex(DEFAULT_PANELS),
+        finer: Method::vortex(2 * DEFAULT_PANELS),
+        finest: Method::vortex(4 * DEFAULT_PANELS),
+        wing: (swept_ar6, "AR 6 swept 30 deg"),
+        smooth: 1e-3,
+        control: 0.01,
+    },
+];
 
 /// Grid convergence of each method: the relative change of each quantity between the
 /// default resolution and a finer one stays inside the method's criterion.
@@ -487,6 +503,7 @@ fn study_cases(study: &Study) -> [Case; 3] {
         default,
         finer,
         finest,
+        wing: (smooth_wing, label),
         smooth,
         control,
     } = *study;
@@ -501,18 +518,18 @@ fn study_cases(study: &Study) -> [Case; 3] {
     };
     [
         Case::fixed(
-            format!("{name}: smooth taper CL_alpha, default vs 2x finer, rel. change"),
+            format!("{name}: {label} CL_alpha, default vs 2x finer, rel. change"),
             CONVERGENCE,
             0.0,
             Absolute(smooth),
-            change(smooth_tapered, finer, |s| s.cl_alpha),
+            change(smooth_wing, finer, |s| s.cl_alpha),
         ),
         Case::fixed(
-            format!("{name}: smooth taper CDi, default vs 2x finer, rel. change"),
+            format!("{name}: {label} CDi, default vs 2x finer, rel. change"),
             CONVERGENCE,
             0.0,
             Absolute(smooth),
-            change(smooth_tapered, finer, |s| s.coefficients.cdi),
+            change(smooth_wing, finer, |s| s.coefficients.cdi),
         ),
         Case::fixed(
             format!("{name}: aileron Cl_roll, default vs 4x finer, rel. change"),

@@ -60,6 +60,17 @@ pub fn rectangular(aspect_ratio: f64) -> Wing {
     tapered(aspect_ratio, 1.0)
 }
 
+/// The AR 6 rectangular wing of [`rectangular`] swept 30 deg back along its leading edge
+/// (the swept wing of docs/theory.md's vortex-method grid study).
+#[must_use]
+pub fn swept_ar6() -> Wing {
+    let mut w = rectangular(6.0);
+    for s in &mut w.stations {
+        s.x_le = s.y * 30.0_f64.to_radians().tan();
+    }
+    w
+}
+
 /// The right-half collocation points of an `n`-term symmetric solve of a span-2 wing,
 /// `y = -cos(k pi/(n + 1))` for the positive ones, with the root and the tip, in order.
 #[must_use]
