@@ -1,21 +1,13 @@
 //! The design commands through the real binary: files written, formats, one-line errors.
 
+mod cli_support;
+
 use std::path::Path;
-use std::process::{Command, Output};
+use std::process::Output;
 
 use serde_json::Value;
 
-fn gammaline(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_gammaline"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .env(
-            "GAMMALINE_SESSION_DIR",
-            std::env::temp_dir().join("gammaline-cli-design-tests"),
-        )
-        .output()
-        .expect("the binary runs")
-}
+use cli_support::gammaline;
 
 fn json(o: &Output) -> Value {
     assert!(o.status.success(), "{}", String::from_utf8_lossy(&o.stderr));

@@ -1,41 +1,13 @@
 //! The real binary, end to end: every example wing in every format, the JSON contract,
 //! exit codes and one-line errors.
 
-use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
+mod cli_support;
+
+use std::path::PathBuf;
 
 use serde_json::Value;
 
-fn gammaline(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_gammaline"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .env(
-            "GAMMALINE_SESSION_DIR",
-            std::env::temp_dir().join("gammaline-cli-tests"),
-        )
-        .output()
-        .expect("the binary runs")
-}
-
-fn stdout(o: &Output) -> String {
-    String::from_utf8_lossy(&o.stdout).into_owned()
-}
-
-fn stderr(o: &Output) -> String {
-    String::from_utf8_lossy(&o.stderr).into_owned()
-}
-
-fn example_wings() -> Vec<PathBuf> {
-    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
-    let mut files: Vec<PathBuf> = std::fs::read_dir(dir)
-        .expect("wings/ exists")
-        .filter_map(|e| e.ok().map(|e| e.path()))
-        .filter(|p| p.extension().is_some_and(|x| x == "toml"))
-        .collect();
-    files.sort();
-    files
-}
+use cli_support::{example_wings, gammaline, stderr, stdout};
 
 fn json_of(file: &str, extra: &[&str]) -> Value {
     let mut args = vec!["solve", file, "--format", "json"];

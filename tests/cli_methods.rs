@@ -1,21 +1,10 @@
 //! The real binary with both methods: `--method`, `--panels`, `--stall` and sweep flags.
 
-use std::path::{Path, PathBuf};
-use std::process::{Command, Output};
+mod cli_support;
 
 use serde_json::Value;
 
-fn gammaline(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_gammaline"))
-        .args(args)
-        .current_dir(env!("CARGO_MANIFEST_DIR"))
-        .env(
-            "GAMMALINE_SESSION_DIR",
-            std::env::temp_dir().join("gammaline-cli-method-tests"),
-        )
-        .output()
-        .expect("the binary runs")
-}
+use cli_support::{example_wings, gammaline};
 
 fn json(args: &[&str]) -> Value {
     let o = gammaline(args);
@@ -25,17 +14,6 @@ fn json(args: &[&str]) -> Value {
         String::from_utf8_lossy(&o.stderr)
     );
     serde_json::from_slice(&o.stdout).expect("one JSON object")
-}
-
-fn example_wings() -> Vec<PathBuf> {
-    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("wings");
-    let mut files: Vec<PathBuf> = std::fs::read_dir(dir)
-        .expect("wings/ exists")
-        .filter_map(|e| e.ok().map(|e| e.path()))
-        .filter(|p| p.extension().is_some_and(|x| x == "toml"))
-        .collect();
-    files.sort();
-    files
 }
 
 #[test]
